@@ -1,0 +1,12 @@
+using System.CommandLine;
+
+namespace Patchproof.Cli;
+
+/// <summary>The verbs of <c>patchproof</c>, one command each; add a new verb here.</summary>
+internal static class CliVerbs
+{
+    public static IEnumerable<Command> All(CliConsole console)
+    {
+        yield return Verbs.AboutVerb.Create(console);
+    }
+}

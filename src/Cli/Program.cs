@@ -1,0 +1,3 @@
+using Patchproof.Cli;
+
+return PatchproofCommandLine.Run(args, Console.Out, Console.Error);
