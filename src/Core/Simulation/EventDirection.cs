@@ -1,0 +1,14 @@
+namespace Patchproof.Core.Simulation;
+
+/// <summary>Which sign changes of an event function count as events.</summary>
+public enum EventDirection
+{
+    /// <summary>Both rising and falling crossings.</summary>
+    Any,
+
+    /// <summary>Only crossings from negative to non-negative.</summary>
+    Rising,
+
+    /// <summary>Only crossings from positive to non-positive.</summary>
+    Falling,
+}
