@@ -1,0 +1,26 @@
+namespace Patchproof.Core.Diagnosis;
+
+/// <summary>Settings of the part diagnosis; the defaults are the calibrated ones.</summary>
+public sealed record DiagnosisOptions
+{
+    /// <summary>Prior probability that any one part (or group) is faulty, π in π^|F| (1 - π)^(N - |F|). Default 0.02.</summary>
+    public double FaultPriorProbability { get; init; } = 0.02;
+
+    /// <summary>The most parts a hypothesis frees at once. Default 2.</summary>
+    public int MaxFaultsPerHypothesis { get; init; } = 2;
+
+    /// <summary>Columns whose whitened directions have |cos| above this cannot be told apart and form a group. Default 0.999.</summary>
+    public double ParallelCosine { get; init; } = 0.999;
+
+    /// <summary>A runner-up naming other parts with a posterior above this makes the verdict "cannot decide". Default 0.1.</summary>
+    public double CannotDecideRunnerUpProbability { get; init; } = 0.1;
+
+    /// <summary>Below this chi-square p-value the winning hypothesis does not explain the rows. Default 1e-3.</summary>
+    public double FitCheckPValue { get; init; } = 1e-3;
+
+    /// <summary>An all-in-tolerance explanation with a p-value at least this is accepted before any part is named. Default 0.01.</summary>
+    public double AcceptableHealthyPValue { get; init; } = 0.01;
+
+    /// <summary>How many standard deviations the interval spans on each side (2 gives about 95 %). Default 2.</summary>
+    public double IntervalSigmas { get; init; } = 2;
+}

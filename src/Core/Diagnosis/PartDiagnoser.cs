@@ -1,0 +1,293 @@
+using System.Globalization;
+using MathNet.Numerics.Distributions;
+using MathNet.Numerics.LinearAlgebra;
+
+namespace Patchproof.Core.Diagnosis;
+
+/// <summary>Names the parts that explain a board's measured coefficient deviations, with how sure it is.</summary>
+/// <remarks>
+/// <para>The measured rows w (log-coefficient deviations and offsets) are modelled as w = A u + e, with
+/// e ~ N(0, Σ_w). A hypothesis F frees a set of at most two parts (or groups of parts this capture
+/// cannot tell apart): their prior is wide (sd ln 3 for values, 50 mV for offsets), every other column
+/// keeps its healthy prior. The model is linear and Gaussian, so the evidence of each hypothesis is
+/// exact: w ~ N(0, M_F) with M_F = A D_F Aᵀ + Σ_w, and
+/// ln p(w | F) = -½ wᵀ M_F⁻¹ w - ½ ln det(2π M_F). Each hypothesis has the prior π^|F| (1 - π)^(N - |F|).
+/// The posterior of u under F has mean D_F Aᵀ M_F⁻¹ w and covariance D_F - D_F Aᵀ M_F⁻¹ A D_F.</para>
+/// <para>Guards: a hypothesis is set aside when its posterior needs a part it calls healthy more than
+/// one posterior sd outside that part's band. A part is named only when no all-in-tolerance explanation
+/// fits (χ² p ≥ 0.01 with every part inside its band) and its interval lies outside the band; the verdict is
+/// "cannot decide" when the runner-up names other parts with a posterior above 0.1.</para>
+/// <para>Groups: columns whose directions, whitened by Σ_w, are parallel (|cos| &gt; 0.999) cannot be told
+/// apart by this capture (a single-input integrator's resistor and capacitor, say). They are ranked as one,
+/// and every member whose implied deviation is physically plausible is reported.</para>
+/// <para>References: [1] C. M. Bishop, Pattern Recognition and Machine Learning (2006), §2.3.3 and §3.4
+/// (linear-Gaussian marginal likelihood). [2] D. J. C. MacKay, Information Theory, Inference, and
+/// Learning Algorithms (2003), ch. 28 (model comparison by evidence).</para>
+/// </remarks>
+public static class PartDiagnoser
+{
+    /// <summary>Diagnoses the problem with the default, calibrated options.</summary>
+    /// <param name="problem">The measured rows, the columns and the covariance.</param>
+    /// <returns>The outcome, the named parts and the ranked hypotheses.</returns>
+    public static DiagnosisResult Diagnose(DiagnosisProblem problem) => Diagnose(problem, new DiagnosisOptions());
+
+    /// <summary>Diagnoses the problem.</summary>
+    /// <param name="problem">The measured rows, the columns and the covariance.</param>
+    /// <param name="options">Priors and decision thresholds.</param>
+    /// <returns>The outcome, the named parts and the ranked hypotheses.</returns>
+    /// <exception cref="ArgumentOutOfRangeException">The covariance is not positive definite, or an option is out of range.</exception>
+    public static DiagnosisResult Diagnose(DiagnosisProblem problem, DiagnosisOptions options)
+    {
+        Preconditions.CheckArgumentRange(nameof(options), options.FaultPriorProbability is > 0 and < 1, "the fault prior probability must lie strictly between 0 and 1");
+        Preconditions.CheckArgumentRange(nameof(options), options.MaxFaultsPerHypothesis is >= 0 and <= 3, "at most three parts can be freed at once");
+        var model = LinearGaussianModel.Create(problem);
+        var groups = FindGroups(model, problem.Columns, options.ParallelCosine);
+        var unobservable = problem.Columns.Where((column, j) => column.IsFaultCandidate && !model.IsObservable(j)).Select(column => column.Id).ToList();
+
+        var hypotheses = EnumerateHypotheses(groups.Select(group => group.Representative).ToList(), options.MaxFaultsPerHypothesis)
+            .Select(freed => Evaluate(model, problem.Columns, freed, groups.Count, options))
+            .ToList();
+        var ranked = Normalize(hypotheses);
+        var accepted = ranked.Where(h => h.Hypothesis.RejectedBecause is null).ToList();
+        var winner = accepted.Count > 0 ? accepted[0] : ranked[0];
+        var runnerUp = accepted.Skip(1).FirstOrDefault(h => NamesOtherParts(h.Freed, winner.Freed));
+        var healthy = ranked.Single(h => h.Freed.Count == 0);
+
+        var partGroups = groups.Select(group => new PartGroup(problem.Columns[group.Representative].Id, group.Members.Select(j => problem.Columns[j].Id).ToList())).ToList();
+        var resolutions = problem.Columns.Select((column, j) => (column, j))
+            .Where(pair => pair.column.IsFaultCandidate)
+            .Select(pair => model.IsObservable(pair.j)
+                ? new PartResolution(pair.column.Id, Evaluate(model, problem.Columns, [pair.j], groups.Count, options).Hypothesis.Posterior[pair.j].Sd, true)
+                : new PartResolution(pair.column.Id, double.PositiveInfinity, false))
+            .ToList();
+        var nuisance = winner.Hypothesis.Posterior.Where((_, j) => !problem.Columns[j].IsFaultCandidate).ToList();
+        var notes = new List<string>();
+        if (unobservable.Count > 0)
+        {
+            notes.Add("This capture cannot see " + string.Join(", ", unobservable) + ": no measured coefficient depends on them.");
+        }
+
+        var (outcome, findings, summary) = Decide(model, problem.Columns, groups, healthy, winner, runnerUp, options, notes);
+        return new DiagnosisResult(outcome, summary, findings, winner.Hypothesis, runnerUp?.Hypothesis, ranked.Select(h => h.Hypothesis).ToList(), partGroups, unobservable, resolutions, nuisance, notes);
+    }
+
+    private static (DiagnosisOutcome Outcome, IReadOnlyList<PartFinding> Findings, string Summary) Decide(
+        LinearGaussianModel model,
+        IReadOnlyList<DiagnosisColumn> columns,
+        IReadOnlyList<ColumnGroup> groups,
+        ScoredHypothesis healthy,
+        ScoredHypothesis winner,
+        ScoredHypothesis? runnerUp,
+        DiagnosisOptions options,
+        List<string> notes)
+    {
+        var healthyAcceptable = healthy.Hypothesis.FitPValue >= options.AcceptableHealthyPValue
+            && healthy.Hypothesis.RejectedBecause is null
+            && columns.Select((column, j) => (column, j)).Where(pair => pair.column.IsFaultCandidate)
+                .All(pair => Math.Abs(healthy.Hypothesis.Posterior[pair.j].Mean) <= pair.column.ToleranceBand);
+        if (healthyAcceptable)
+        {
+            var nearest = columns.Select((column, j) => (column, ratio: Math.Abs(healthy.Hypothesis.Posterior[j].Mean) / column.ToleranceBand))
+                .Where(pair => pair.column.IsFaultCandidate && model.IsObservable(columns.ToList().IndexOf(pair.column)))
+                .OrderByDescending(pair => pair.ratio).Take(3)
+                .Select(pair => $"{pair.column.Id} at {pair.ratio * 100:0}% of its band")
+                .ToList();
+            if (nearest.Count > 0)
+            {
+                notes.Add("Nearest their tolerance edges: " + string.Join(", ", nearest) + ".");
+            }
+
+            return (DiagnosisOutcome.WithinTolerance, [], "Every part behaves within its tolerance: the measurements fit the design as drawn.");
+        }
+
+        if (winner.Hypothesis.FitPValue < options.FitCheckPValue)
+        {
+            return (DiagnosisOutcome.NoExplanationFits, [],
+                $"No explanation with at most {options.MaxFaultsPerHypothesis} deviating parts fits the measurements (χ² p = {winner.Hypothesis.FitPValue:0.###e0}): look for a wiring fault with the structure check, or a bad capture.");
+        }
+
+        var findings = winner.Freed
+            .Select(j => BuildFinding(model, columns, groups.First(group => group.Representative == j), winner.Hypothesis.Posterior, options))
+            .Where(finding => finding.Verdict is not PartVerdict.WithinTolerance)
+            .ToList();
+        if (findings.Count == 0)
+        {
+            return (DiagnosisOutcome.CannotDecide, [],
+                "The measurements do not fit an all-healthy board, but no part is resolved outside its tolerance: record longer or add a channel.");
+        }
+
+        if (runnerUp is not null && runnerUp.Hypothesis.Probability > options.CannotDecideRunnerUpProbability)
+        {
+            var undecided = findings.Select(finding => finding with { Verdict = PartVerdict.CannotDecide }).ToList();
+            return (DiagnosisOutcome.CannotDecide, undecided,
+                $"Cannot decide: {winner.Hypothesis.Describe()} (probability {winner.Hypothesis.Probability:0.00}) or {runnerUp.Hypothesis.Describe()} ({runnerUp.Hypothesis.Probability:0.00}). Record longer, add a channel, or measure the parts.");
+        }
+
+        if (findings.Any(finding => finding.Verdict is PartVerdict.CannotDecide))
+        {
+            return (DiagnosisOutcome.CannotDecide, findings, "Cannot decide: " + string.Join(" ", findings.Select(finding => finding.Sentence)));
+        }
+
+        return (DiagnosisOutcome.PartsNamed, findings, string.Join(" ", findings.Select(finding => finding.Sentence)));
+    }
+
+    private static PartFinding BuildFinding(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, ColumnGroup group, IReadOnlyList<ColumnPosterior> posterior, DiagnosisOptions options)
+    {
+        var representative = group.Representative;
+        var mean = posterior[representative].Mean;
+        var sd = posterior[representative].Sd;
+        var members = group.Members
+            .Select(j =>
+            {
+                var ratio = j == representative ? 1.0 : model.ImpliedRatio(representative, j);
+                return (j, mean: mean * ratio, sd: sd * Math.Abs(ratio));
+            })
+            .Where(member => Math.Abs(member.mean) <= columns[member.j].PlausibleLimit || member.j == representative)
+            .ToList();
+        // The likeliest member is the one whose implied deviation is smallest against its own tolerance.
+        var primary = members
+            .OrderBy(member => Math.Abs(member.mean) <= columns[member.j].PlausibleLimit ? 0 : 1)
+            .ThenBy(member => Math.Abs(member.mean) / columns[member.j].ToleranceBand)
+            .First();
+
+        var alternatives = members.Where(member => member.j != primary.j && Math.Abs(member.mean) <= columns[member.j].PlausibleLimit)
+            .Select(member => MakeFinding(columns[member.j], member.mean, member.sd, [], options))
+            .ToList();
+        return MakeFinding(columns[primary.j], primary.mean, primary.sd, alternatives, options);
+    }
+
+    private static PartFinding MakeFinding(DiagnosisColumn column, double mean, double sd, IReadOnlyList<PartFinding> alternatives, DiagnosisOptions options)
+    {
+        var k = options.IntervalSigmas;
+        var verdict = sd > column.ToleranceBand
+            ? PartVerdict.CannotDecide
+            : Math.Abs(mean) - k * sd > column.ToleranceBand ? PartVerdict.OutOfTolerance
+            : Math.Abs(mean) > column.ToleranceBand ? PartVerdict.Drifted
+            : PartVerdict.WithinTolerance;
+        var isValue = column.Kind is DiagnosisColumnKind.PartValue;
+        var effective = isValue ? column.NominalValue * Math.Exp(mean) : mean;
+        var lower = isValue ? column.NominalValue * Math.Exp(mean - k * sd) : mean - k * sd;
+        var upper = isValue ? column.NominalValue * Math.Exp(mean + k * sd) : mean + k * sd;
+        var deviation = isValue ? 100 * (Math.Exp(mean) - 1) : 1000 * mean;
+        var also = alternatives.Count == 0 ? "" : " This capture cannot tell it from " + string.Join(", ", alternatives.Select(a => $"{a.PartId} ({a.Deviation:+0.0;-0.0} %)")) + ".";
+        var sentence = isValue
+            ? string.Create(CultureInfo.InvariantCulture, $"{column.Id}, {EngineeringFormat.Format(column.NominalValue, column.Unit)} nominal, behaves like {EngineeringFormat.Format(effective, column.Unit)} ({deviation:+0.0;-0.0} %, interval {EngineeringFormat.Format(lower, column.Unit)} to {EngineeringFormat.Format(upper, column.Unit)}): {Describe(verdict)}.{also}")
+            : string.Create(CultureInfo.InvariantCulture, $"{column.Id} shows an offset of {deviation:+0.0;-0.0} mV (± {1000 * k * sd:0.0} mV): {Describe(verdict)}.{also}");
+        return new PartFinding(column.Id, column.Label, column.Kind, column.NominalValue, column.Unit, effective, lower, upper, deviation, mean, sd, verdict, alternatives, sentence);
+    }
+
+    private static string Describe(PartVerdict verdict) => verdict switch
+    {
+        PartVerdict.OutOfTolerance => "out of tolerance, replace it",
+        PartVerdict.Drifted => "drifted past its tolerance, check it",
+        PartVerdict.CannotDecide => "cannot decide, record longer or add a channel",
+        _ => "within tolerance",
+    };
+
+    private static bool NamesOtherParts(IReadOnlyList<int> candidate, IReadOnlyList<int> winner) =>
+        !candidate.All(winner.Contains) && !winner.All(candidate.Contains);
+
+    private static IEnumerable<IReadOnlyList<int>> EnumerateHypotheses(IReadOnlyList<int> representatives, int maxFaults)
+    {
+        yield return [];
+        if (maxFaults >= 1)
+        {
+            foreach (var a in representatives)
+            {
+                yield return [a];
+            }
+        }
+
+        if (maxFaults >= 2)
+        {
+            for (var i = 0; i < representatives.Count; i++)
+            {
+                for (var k = i + 1; k < representatives.Count; k++)
+                {
+                    yield return [representatives[i], representatives[k]];
+                }
+            }
+        }
+
+        if (maxFaults >= 3)
+        {
+            for (var i = 0; i < representatives.Count; i++)
+            {
+                for (var k = i + 1; k < representatives.Count; k++)
+                {
+                    for (var l = k + 1; l < representatives.Count; l++)
+                    {
+                        yield return [representatives[i], representatives[k], representatives[l]];
+                    }
+                }
+            }
+        }
+    }
+
+    private static ScoredHypothesis Evaluate(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, IReadOnlyList<int> freed, int candidateCount, DiagnosisOptions options)
+    {
+        var variances = columns.Select((column, j) => freed.Contains(j) ? column.FaultSd * column.FaultSd : column.HealthySd * column.HealthySd).ToArray();
+        var (logEvidence, chiSquare, means, sds) = model.Evaluate(variances);
+        var posterior = columns.Select((column, j) => new ColumnPosterior(column.Id, means[j], sds[j])).ToList();
+        var logPrior = freed.Count * Math.Log(options.FaultPriorProbability) + (candidateCount - freed.Count) * Math.Log(1 - options.FaultPriorProbability);
+        var pValue = 1 - ChiSquared.CDF(model.RowCount, chiSquare);
+        string? rejected = null;
+        for (var j = 0; j < columns.Count && rejected is null; j++)
+        {
+            if (columns[j].IsFaultCandidate && !freed.Contains(j) && Math.Abs(means[j]) > columns[j].ToleranceBand + sds[j])
+            {
+                rejected = string.Create(CultureInfo.InvariantCulture, $"needs {columns[j].Id}, which it calls healthy, well outside its band (u = {means[j]:0.####}, band {columns[j].ToleranceBand:0.####})");
+            }
+        }
+
+        var names = freed.Select(j => columns[j].Id).ToList();
+        return new ScoredHypothesis(freed, new DiagnosisHypothesis(names, logEvidence, logPrior, 0, chiSquare, model.RowCount, pValue, rejected, posterior));
+    }
+
+    private static List<ScoredHypothesis> Normalize(List<ScoredHypothesis> hypotheses)
+    {
+        var accepted = hypotheses.Where(h => h.Hypothesis.RejectedBecause is null).ToList();
+        var pool = accepted.Count > 0 ? accepted : hypotheses;
+        var max = pool.Max(h => h.LogPosterior);
+        var total = pool.Sum(h => Math.Exp(h.LogPosterior - max));
+        return hypotheses
+            .Select(h => pool.Contains(h) ? h with { Hypothesis = h.Hypothesis with { Probability = Math.Exp(h.LogPosterior - max) / total } } : h)
+            .OrderBy(h => pool.Contains(h) ? 0 : 1)
+            .ThenByDescending(h => h.LogPosterior)
+            .ToList();
+    }
+
+    private static List<ColumnGroup> FindGroups(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, double parallelCosine)
+    {
+        var groups = new List<ColumnGroup>();
+        var assigned = new HashSet<int>();
+        for (var i = 0; i < columns.Count; i++)
+        {
+            if (!columns[i].IsFaultCandidate || !model.IsObservable(i) || assigned.Contains(i))
+            {
+                continue;
+            }
+
+            var members = new List<int> { i };
+            for (var k = i + 1; k < columns.Count; k++)
+            {
+                if (columns[k].IsFaultCandidate && model.IsObservable(k) && !assigned.Contains(k) && Math.Abs(model.WhitenedCosine(i, k)) > parallelCosine)
+                {
+                    members.Add(k);
+                }
+            }
+
+            assigned.UnionWith(members);
+            groups.Add(new ColumnGroup(i, members));
+        }
+
+        return groups;
+    }
+
+    private sealed record ColumnGroup(int Representative, IReadOnlyList<int> Members);
+
+    private sealed record ScoredHypothesis(IReadOnlyList<int> Freed, DiagnosisHypothesis Hypothesis)
+    {
+        public double LogPosterior => Hypothesis.LogEvidence + Hypothesis.LogPrior;
+    }
+}
