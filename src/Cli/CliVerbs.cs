@@ -8,5 +8,6 @@ internal static class CliVerbs
     public static IEnumerable<Command> All(CliConsole console)
     {
         yield return Verbs.AboutVerb.Create(console);
+        yield return Verbs.InspectVerb.Create(console);
     }
 }
