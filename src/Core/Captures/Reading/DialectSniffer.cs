@@ -8,7 +8,7 @@ namespace Patchproof.Core.Captures.Reading;
 /// <remarks>
 /// Each candidate (comma, semicolon, tab, runs of spaces; decimal point, or decimal comma where the
 /// delimiter is not a comma) is scored on the head's lines: the first run of three rows made only of
-/// numbers with one field count marks the data. Candidates are ranked by whether the nearest line above
+/// numbers with one field count (two of the five rows after it agreeing) marks the data. Candidates are ranked by whether the nearest line above
 /// the data splits into the same number of fields (a header), by how many of the following rows keep
 /// that shape, by the number of fields, then in the order listed. Metadata and header lines are split
 /// with CsvHelper so quoted names work.
@@ -64,7 +64,21 @@ internal static class DialectSniffer
     {
         if (delimiter == (byte)' ')
         {
-            return text.Split([' ', '\t'], StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
+            // "CH1 (V)  CH2 (V)": a bracketed unit belongs to the name before it.
+            var tokens = new List<string>();
+            foreach (var token in text.Split([' ', '\t'], StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+            {
+                if (tokens.Count > 0 && token[0] is '(' or '[' or '{')
+                {
+                    tokens[^1] += " " + token;
+                }
+                else
+                {
+                    tokens.Add(token.Trim('"'));
+                }
+            }
+
+            return tokens;
         }
 
         var options = new CsvReaderOptions
@@ -110,6 +124,7 @@ internal static class DialectSniffer
             var n = shapes[i];
             var following = 0;
             var agreeing = 0;
+            var nearFollowing = 0;
             var confirmed = 0;
             for (var j = i + 1; j < lines.Count; j++)
             {
@@ -119,25 +134,31 @@ internal static class DialectSniffer
                 }
 
                 following++;
+                var near = nearFollowing < 5;
+                if (near)
+                {
+                    nearFollowing++;
+                }
+
                 if (shapes[j] == n)
                 {
                     agreeing++;
-                    if (j <= i + 3)
+                    if (near)
                     {
                         confirmed++;
                     }
                 }
             }
 
-            var needed = Math.Min(2, following);
-            if (confirmed < needed)
+            // Two of the next five rows must keep the shape; ragged rows are the body reader's business.
+            if (confirmed < Math.Min(2, nearFollowing))
             {
                 continue;
             }
 
             var coverage = following == 0 ? 1.0 : (double)agreeing / following;
             var above = NearestTextLineAbove(lines, i);
-            var headerAgrees = above is not null && TextFieldCount(above, delimiter) == n;
+            var headerAgrees = above is not null && TextFieldCount(above, delimiter) == n && !HasNumberLikeField(above, delimiter, separator);
             return new Candidate(delimiter, separator, i, n, coverage, headerAgrees, Array.IndexOf(Delimiters, delimiter) * 2 + (separator == (byte)'.' ? 0 : 1));
         }
 
@@ -304,6 +325,9 @@ internal static class DialectSniffer
 
         return -1;
     }
+
+    private static bool HasNumberLikeField(RawLine line, byte delimiter, byte separator) =>
+        SplitText(line.ToHeadLine().Text, delimiter).Any(f => f.Length > 0 && IsNumberLike(f, separator));
 
     private static int TextFieldCount(RawLine line, byte delimiter) =>
         WithoutTrailingEmpty(SplitText(line.ToHeadLine().Text, delimiter)).Count;

@@ -5,8 +5,8 @@ namespace Patchproof.Core.Captures.Reading;
 /// <summary>Decides a file's time base: uniform when the stamps are evenly spaced within their printed resolution, explicit otherwise.</summary>
 /// <remarks>
 /// With a time column of N stamps t_i (in seconds), the fitted interval is dt = (t_{N-1} - t_0) / (N - 1). The
-/// time base is uniform when every |t_i - (t_0 + i dt)| is at most half the weight of the last printed digit
-/// (plus a few ulps): the file cannot say more. Stamps printed with too few digits repeat (with %.6e, seven
+/// time base is uniform when every |t_i - (t_0 + i dt)| is at most the weight of the last printed digit
+/// (rounding of each stamp, plus the rounding of the last stamp carried into dt, plus a few ulps): the file cannot say more. Stamps printed with too few digits repeat (with %.6e, seven
 /// significant digits cannot resolve a 2 µs step once t passes 10 s); a uniform fit then rebuilds the time
 /// base, from the metadata's sample interval when it agrees with dt to 0.1 %, otherwise from dt, and a note
 /// says so. Without a time column the metadata's interval (or rate) and start time (default 0) are used.
@@ -83,7 +83,7 @@ internal static class TimeBaseBuilder
         }
 
         var scale = Math.Max(Math.Abs(t0), Math.Abs(times[^1]));
-        var tolerance = (0.5 * quantum * (1 + 1e-9)) + (8 * Math.BitIncrement(scale) - 8 * scale) + (1e-9 * fitted);
+        var tolerance = (quantum * (1 + 1e-9)) + (8 * Math.BitIncrement(scale) - 8 * scale) + (1e-9 * fitted);
         var uniform = maxResidual <= tolerance;
         var intervalSeconds = fitted;
         var source = "the first and last time stamps";
