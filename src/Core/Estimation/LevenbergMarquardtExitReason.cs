@@ -1,0 +1,33 @@
+namespace Patchproof.Core.Estimation;
+
+/// <summary>Why the Levenberg-Marquardt loop stopped.</summary>
+public enum LevenbergMarquardtExitReason
+{
+    /// <summary>Converged: the scaled gradient fell below the gradient tolerance (includes an exact zero residual).</summary>
+    ConvergedOnGradient,
+
+    /// <summary>Converged: the scaled step fell below the relative step tolerance.</summary>
+    ConvergedOnStep,
+
+    /// <summary>Converged: actual and predicted cost reductions fell below the relative cost tolerance.</summary>
+    ConvergedOnCost,
+
+    /// <summary>Not converged: the iteration cap was reached; the last accepted point is returned.</summary>
+    MaxIterations,
+
+    /// <summary>Not converged: no damping made the step system solvable, or the Jacobian was not finite.</summary>
+    Singular,
+
+    /// <summary>Not started: the residuals were not finite at the initial point.</summary>
+    NonFiniteInitialCost,
+}
+
+/// <summary>Extensions on <see cref="LevenbergMarquardtExitReason"/>.</summary>
+public static class LevenbergMarquardtExitReasonExtensions
+{
+    /// <summary>True for the three convergence criteria.</summary>
+    /// <param name="reason">The exit reason.</param>
+    /// <returns>Whether the loop converged.</returns>
+    public static bool IsConverged(this LevenbergMarquardtExitReason reason) =>
+        reason is LevenbergMarquardtExitReason.ConvergedOnGradient or LevenbergMarquardtExitReason.ConvergedOnStep or LevenbergMarquardtExitReason.ConvergedOnCost;
+}

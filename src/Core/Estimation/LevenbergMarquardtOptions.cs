@@ -1,0 +1,71 @@
+namespace Patchproof.Core.Estimation;
+
+/// <summary>How the Levenberg-Marquardt damping is scaled per unknown.</summary>
+public enum DampingScaling
+{
+    /// <summary>Marquardt: lambda * diag(J'J), each entry the largest seen so far in this run (the MINPACK choice; invariant to the unknowns' units and robust when a column shrinks).</summary>
+    MarquardtRunningMaximum,
+
+    /// <summary>Marquardt: lambda * diag(J'J) at the current point.</summary>
+    Marquardt,
+
+    /// <summary>Levenberg: lambda * I (depends on the unknowns' units).</summary>
+    Identity,
+}
+
+/// <summary>How a Jacobian is approximated when none is supplied.</summary>
+public enum FiniteDifferenceScheme
+{
+    /// <summary>One extra residual evaluation per unknown; error of order sqrt(machine epsilon).</summary>
+    Forward,
+
+    /// <summary>Two extra evaluations per unknown; error of order epsilon^(2/3).</summary>
+    Central,
+}
+
+/// <summary>Options of the Levenberg-Marquardt loop: stopping tolerances, iteration cap, damping and Jacobian approximation.</summary>
+/// <remarks>
+/// <para>Stopping, tested in this order after every iteration, and reported by
+/// <see cref="LevenbergMarquardtExitReason"/>:
+/// gradient: max_j |g_j| / sqrt(d_j S) &lt;= <see cref="GradientTolerance"/> (the cosine between the residual and each
+/// scaled Jacobian column, as in MINPACK);
+/// step: ||D delta|| &lt;= <see cref="RelativeStepTolerance"/> (||D p|| + <see cref="RelativeStepTolerance"/>) with
+/// D = diag(sqrt(d_j));
+/// cost: both the actual and the predicted reduction are at most <see cref="RelativeCostTolerance"/> * S;
+/// or the iteration cap.</para>
+/// <para>Defaults: tolerances near what double precision resolves (1e-10 step, 1e-14 cost, 1e-12 gradient), 1000
+/// iterations, initial lambda 1e-3, <see cref="DampingScaling.MarquardtRunningMaximum"/>, central differences.</para>
+/// </remarks>
+public sealed record LevenbergMarquardtOptions
+{
+    /// <summary>Relative step tolerance, positive. Default 1e-10.</summary>
+    public double RelativeStepTolerance { get; init; } = 1e-10;
+
+    /// <summary>Relative cost-change tolerance, positive. Default 1e-14.</summary>
+    public double RelativeCostTolerance { get; init; } = 1e-14;
+
+    /// <summary>Gradient (cosine) tolerance, non-negative. Default 1e-12.</summary>
+    public double GradientTolerance { get; init; } = 1e-12;
+
+    /// <summary>The iteration cap (an iteration is one trial step, accepted or not), at least 1. Default 1000.</summary>
+    public int MaxIterations { get; init; } = 1000;
+
+    /// <summary>The starting damping factor lambda, positive. Default 1e-3.</summary>
+    public double InitialDamping { get; init; } = 1e-3;
+
+    /// <summary>How the damping is scaled per unknown. Default <see cref="DampingScaling.MarquardtRunningMaximum"/>.</summary>
+    public DampingScaling Scaling { get; init; } = DampingScaling.MarquardtRunningMaximum;
+
+    /// <summary>The finite-difference scheme used when no Jacobian is supplied. Default <see cref="FiniteDifferenceScheme.Central"/>.</summary>
+    public FiniteDifferenceScheme FiniteDifferences { get; init; } = FiniteDifferenceScheme.Central;
+
+    /// <summary>Throws when an option is out of range.</summary>
+    internal void Validate()
+    {
+        Preconditions.CheckArgumentRange(nameof(RelativeStepTolerance), RelativeStepTolerance > 0 && double.IsFinite(RelativeStepTolerance), "must be positive and finite");
+        Preconditions.CheckArgumentRange(nameof(RelativeCostTolerance), RelativeCostTolerance > 0 && double.IsFinite(RelativeCostTolerance), "must be positive and finite");
+        Preconditions.CheckArgumentRange(nameof(GradientTolerance), GradientTolerance >= 0 && double.IsFinite(GradientTolerance), "must be non-negative and finite");
+        Preconditions.CheckArgumentRange(nameof(MaxIterations), MaxIterations >= 1, "must be at least 1");
+        Preconditions.CheckArgumentRange(nameof(InitialDamping), InitialDamping > 0 && double.IsFinite(InitialDamping), "must be positive and finite");
+    }
+}
