@@ -1,6 +1,6 @@
 namespace Patchproof.Core.Simulation;
 
-/// <summary>Which sign changes of an event function count as events.</summary>
+/// <summary>Which sign changes of an event function count as events, judged as time increases (also when integrating backwards).</summary>
 public enum EventDirection
 {
     /// <summary>Both rising and falling crossings.</summary>

@@ -57,7 +57,7 @@ internal sealed class EventLocator
             var g0 = previousValues[i];
             var g1 = ValueAtStepEnd(item, t1, stepper.State, stepper.Derivative);
             previousValues[i] = g1;
-            if (!IsCrossing(item.Direction, g0, g1))
+            if (!IsCrossing(InTimeOrder(item.Direction, direction), g0, g1))
             {
                 continue;
             }
@@ -85,6 +85,15 @@ internal sealed class EventLocator
 
         return terminalTime;
     }
+
+    // Directions are defined as t increases; integrating backwards meets every crossing the other way round.
+    private static EventDirection InTimeOrder(EventDirection eventDirection, double integrationDirection) =>
+        integrationDirection > 0 ? eventDirection : eventDirection switch
+        {
+            EventDirection.Rising => EventDirection.Falling,
+            EventDirection.Falling => EventDirection.Rising,
+            _ => EventDirection.Any,
+        };
 
     private static bool IsCrossing(EventDirection direction, double g0, double g1) => direction switch
     {
