@@ -93,8 +93,9 @@ internal static class DormandPrince45Run
             stepper.AugmentedState.CopyTo(finalValues);
         }
 
-        var times = sampleTimes is null ? stepTimes.ToArray() : sampleTimes[..samplesDone];
-        var values = sampleTimes is null ? stepValues.ToArray() : sampleValues.AsSpan(0, samplesDone * dimension).ToArray();
+        var times = sampleTimes is null ? stepTimes.ToArray() : samplesDone == sampleTimes.Length ? sampleTimes : sampleTimes[..samplesDone];
+        var values = sampleTimes is null ? stepValues.ToArray()
+            : samplesDone == sampleTimes.Length ? sampleValues : sampleValues.AsSpan(0, samplesDone * dimension).ToArray();
         return new OdeSolution(
             status,
             OdeSolver.Describe(status, finalTime, options),

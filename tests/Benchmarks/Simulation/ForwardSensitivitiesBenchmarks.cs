@@ -6,7 +6,7 @@ namespace Patchproof.Benchmarks.Simulation;
 /// <summary>The work multiple shooting asks for: Lorenz segments of 0.5 time units with dx/dx0 and dx/dp, sampled every 0.002.</summary>
 /// <remarks>Run: <c>dotnet run -c Release --project tests/Benchmarks -- --filter '*ForwardSensitivitiesBenchmarks*'</c>.</remarks>
 [MemoryDiagnoser]
-[SimpleJob(launchCount: 1, warmupCount: 3, iterationCount: 10)]
+[Config(typeof(ShortInProcessConfig))]
 public class ForwardSensitivitiesBenchmarks
 {
     private const int SegmentCount = 40;
