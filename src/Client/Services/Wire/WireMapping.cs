@@ -1,0 +1,37 @@
+using Patchproof.Client.Models;
+
+namespace Patchproof.Client.Services.Wire;
+
+/// <summary>From the server's answers to the view models the pages use.</summary>
+internal static class WireMapping
+{
+    public static BenchSummary ToView(this BenchWire w) => new(w.Id, w.Name, w.Institution, w.Description, w.BoardCount);
+
+    public static BoardSummary ToView(this BoardWire w) =>
+        new(w.Id, w.BenchId, w.Code, w.Name, w.BuiltBy, w.Description, w.LatestDesignVersion, w.CaptureCount, w.FitCount, w.CreatedAt);
+
+    public static DesignVersionEntry ToView(this DesignVersionSummaryWire w) => new(w.Version, w.Note, w.CreatedAt);
+
+    public static CaptureEntry ToView(this CaptureWire w) => new(
+        w.Id, w.BoardId, w.FileName, w.SizeBytes, w.RowCount, w.ChannelNames ?? [], w.SampleIntervalSeconds, w.DurationSeconds,
+        (w.Checks ?? []).Select(c => new CaptureCheckEntry(ToSeverity(c.Severity), c.Line, c.Column, c.Message)).ToList(), w.UploadedAt);
+
+    public static FitJob ToView(this FitWire w) => new(
+        w.Id, w.BoardId, w.DesignVersion, w.CaptureIds ?? [], ToState(w.State), w.Progress, w.Stage, w.CancelRequested, w.Error,
+        w.HasResult, w.CreatedAt, w.FinishedAt);
+
+    public static ChannelMapping ToView(this ChannelMappingWire w) => new(w.Channel, w.Variable, w.Sign < 0 ? -1 : 1);
+
+    public static DesignCheckNote ToView(this DesignCheckNoteWire w) => new(ToSeverity(w.Severity), w.Subject ?? "", w.Message);
+
+    public static BuiltInModelEntry ToView(this BuiltInModelWire w) => new(w.Id, w.Name, w.Summary, w.Equations ?? []);
+
+    public static CheckSeverity ToSeverity(string? severity) => severity?.ToLowerInvariant() switch
+    {
+        "error" => CheckSeverity.Error,
+        "warning" => CheckSeverity.Warning,
+        _ => CheckSeverity.Note,
+    };
+
+    public static FitJobState ToState(string? state) => Enum.TryParse<FitJobState>(state, ignoreCase: true, out var parsed) ? parsed : FitJobState.Failed;
+}
