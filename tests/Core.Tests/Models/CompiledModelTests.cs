@@ -255,4 +255,21 @@ public sealed class CompiledModelTests
             ["y - x", "0", "0", "0", "x", "0", "0", "0", "-z"],
             compiled.ParameterJacobianEntries.Select(entry => entry.ToString()));
     }
+
+    [Theory]
+    [InlineData(-1.0)]
+    [InlineData(1.0)]
+    [InlineData(0.0)]
+    public void EvaluateStateJacobian_ChuaAtABreakpoint_UsesTheSlopeOnTheRightLikeTheHandWrittenTwin(double x)
+    {
+        var compiled = ModelCatalog.Chua.Parse().Compile();
+        var parameters = ModelCatalog.Chua.NominalParameters();
+        var expected = new double[9];
+        var actual = new double[9];
+
+        new ChuaSystem().EvaluateStateJacobian(0, [x, 0.2, -0.1], parameters, expected);
+        compiled.EvaluateStateJacobian(0, [x, 0.2, -0.1], parameters, actual);
+
+        Assert.Equal(expected[0], actual[0], 14);
+    }
 }

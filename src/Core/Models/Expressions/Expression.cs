@@ -188,7 +188,7 @@ public sealed record SegmentExpression(string FunctionName, int SegmentIndex, do
     public override IEnumerable<Expression> Children => [Argument];
 }
 
-/// <summary>The indicator of a segment: 1 when Lower &lt; a &lt; Upper, else 0; the derivative of <see cref="SegmentExpression"/>.</summary>
+/// <summary>The indicator of a segment: 1 when Lower &lt;= a &lt; Upper, else 0; the derivative of <see cref="SegmentExpression"/>.</summary>
 /// <param name="Lower">The segment's left breakpoint.</param>
 /// <param name="Upper">The segment's right breakpoint.</param>
 /// <param name="Argument">The argument a.</param>

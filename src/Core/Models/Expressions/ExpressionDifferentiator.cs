@@ -7,8 +7,8 @@ namespace Patchproof.Core.Models.Expressions;
 /// rule through abs (sign), exp, log (1/a), sqrt (1/(2 sqrt a)), sin, cos, tanh (1 - tanh^2),
 /// min and max (the derivative of the argument that is chosen). sign, time, inputs and named
 /// constants have derivative 0. Piecewise-linear functions differentiate through their segment
-/// form: the derivative is the slope of the segment the argument is in (0 is used exactly at a
-/// breakpoint, where the derivative does not exist).</para>
+/// form: the derivative is the slope of the segment the argument is in (exactly at a breakpoint,
+/// where the derivative does not exist, the slope on the right).</para>
 /// <para>The result is simplified with <see cref="ExpressionSimplifier"/>.</para>
 /// </remarks>
 public static class ExpressionDifferentiator

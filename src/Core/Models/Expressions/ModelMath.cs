@@ -15,12 +15,12 @@ public static class ModelMath
     public static double Segment(double lower, double upper, double value) =>
         Math.Min(Math.Max(value, lower), upper) - Math.Min(Math.Max(0.0, lower), upper);
 
-    /// <summary>1 when lower &lt; a &lt; upper, else 0 (NaN for NaN).</summary>
+    /// <summary>1 when lower &lt;= a &lt; upper, else 0 (NaN for NaN): at a breakpoint the segment on the right counts.</summary>
     /// <param name="lower">The left end.</param>
     /// <param name="upper">The right end.</param>
     /// <param name="value">a.</param>
     public static double Window(double lower, double upper, double value) =>
-        double.IsNaN(value) ? double.NaN : value > lower && value < upper ? 1.0 : 0.0;
+        double.IsNaN(value) ? double.NaN : value >= lower && value < upper ? 1.0 : 0.0;
 
     /// <summary><paramref name="whenLessOrEqual"/> when a &lt;= b, else <paramref name="otherwise"/>.</summary>
     /// <param name="left">a.</param>

@@ -5,7 +5,7 @@ namespace Patchproof.Core.Models.Library;
 /// <para>Chua's diode is the piecewise-linear g(x) = m1 x + (m0 - m1)(|x + 1| - |x - 1|)/2: slope m0
 /// inside [-1, 1] and m1 outside. Parameters (alpha, beta) = (15.6, 28); the slopes are fixed
 /// constants m0 = -8/7, m1 = -5/7. This set gives the double-scroll attractor.</para>
-/// <para>At a breakpoint (|x| = 1 exactly) the state Jacobian uses the outer slope m1.</para>
+/// <para>Exactly at a breakpoint the state Jacobian uses the slope on the right (m0 at x = -1, m1 at x = 1), as compiled models do.</para>
 /// <para>References: 1. The dimensionless equations x' = a(-x + y - f(x)), y' = x - y + z,
 /// z' = -b y with f(x) = m1 x + 0.5 (m0 - m1)(|x + 1| - |x - 1|): M. Biey, teaching notes on
 /// Chua's oscillator, Politecnico di Torino (web page), after Chua, Komuro and Matsumoto. 2. The
@@ -52,7 +52,7 @@ public sealed class ChuaSystem : IOdeSystem
     {
         var x = state[0];
         double alpha = parameters[0], beta = parameters[1];
-        var slope = Math.Abs(x) < 1 ? InnerSlope : OuterSlope;
+        var slope = x >= -1 && x < 1 ? InnerSlope : OuterSlope;
         jacobian[8] = 0;
         jacobian[0] = -alpha * (1 + slope);
         jacobian[1] = alpha;
