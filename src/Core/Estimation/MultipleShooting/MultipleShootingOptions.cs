@@ -1,0 +1,40 @@
+namespace Patchproof.Core.Estimation.MultipleShooting;
+
+/// <summary>Settings of the multiple-shooting fit.</summary>
+public sealed record MultipleShootingOptions
+{
+    /// <summary>The length of one shooting segment in seconds; about half a Lyapunov time of the board. Required, positive.</summary>
+    public required double SegmentSeconds { get; init; }
+
+    /// <summary>Relative tolerance of the Dormand-Prince integration inside each segment. Default 1e-8.</summary>
+    public double RelativeTolerance { get; init; } = 1e-8;
+
+    /// <summary>Absolute tolerance in volts of the integration inside each segment. Default 1e-8.</summary>
+    public double AbsoluteToleranceVolts { get; init; } = 1e-8;
+
+    /// <summary>Huber threshold in noise standard deviations (1.345 is the common choice); null fits plain least squares.</summary>
+    public double? HuberThreshold { get; init; } = 1.345;
+
+    /// <summary>How much more a continuity mismatch weighs than a sample misfit of the same size in volts. Default 100.</summary>
+    public double ContinuityWeightFactor { get; init; } = 100;
+
+    /// <summary>Whether each channel gets a fitted offset d_c. Default true.</summary>
+    public bool EstimateChannelOffsets { get; init; } = true;
+
+    /// <summary>The Levenberg-Marquardt settings. Default: at most 60 iterations, relative step 1e-9.</summary>
+    public LevenbergMarquardtOptions Solver { get; init; } = new() { MaxIterations = 60, RelativeStepTolerance = 1e-9, RelativeCostTolerance = 1e-12 };
+
+    /// <summary>Gaussian priors on field parameters, for example from part tolerances. A hidden state's amplitude is not
+    /// observable (scaling it rescales the coefficients that touch it), so a two-channel fit needs priors to fix that
+    /// direction; a fully observed fit needs none. Default none.</summary>
+    public IReadOnlyList<ParameterPrior> ParameterPriors { get; init; } = [];
+
+    /// <summary>Integrate segments on several threads. Default true.</summary>
+    public bool Parallel { get; init; } = true;
+}
+
+/// <summary>A Gaussian prior on one field parameter: (p - Mean) / Sd enters the least squares as a residual.</summary>
+/// <param name="Index">The parameter's index in the field's parameter vector.</param>
+/// <param name="Mean">The prior mean (the design's nominal value).</param>
+/// <param name="Sd">The prior standard deviation, positive.</param>
+public sealed record ParameterPrior(int Index, double Mean, double Sd);
