@@ -8,6 +8,7 @@ internal static class CliVerbs
     public static IEnumerable<Command> All(CliConsole console)
     {
         yield return Verbs.AboutVerb.Create(console);
+        yield return Verbs.DesignVerb.Create(console);
         yield return Verbs.InspectVerb.Create(console);
     }
 }

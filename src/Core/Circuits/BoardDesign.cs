@@ -45,6 +45,9 @@ public sealed record BoardDesign(
     /// <summary>Default output limit: about 13 V on +/-15 V rails (common practice).</summary>
     public const double DefaultOutputLimitVolts = 13.0;
 
+    /// <summary>The node name of ground (0 V), always available as an input: an integrator input wired to it contributes no term.</summary>
+    public const string GroundNode = "gnd";
+
     /// <summary>Default machine unit: +/-10 V full scale (common practice).</summary>
     public const double DefaultMachineUnitVolts = 10.0;
 

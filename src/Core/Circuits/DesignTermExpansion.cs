@@ -60,6 +60,11 @@ internal static class DesignTermExpansion
 
     private static List<Partial> ExpandNode(BoardDesign design, string node)
     {
+        if (node == BoardDesign.GroundNode)
+        {
+            return [];
+        }
+
         if (design.FindVariable(node) is not null)
         {
             return [new Partial(TermBasis.Product(node), 1, ImmutableDictionary<string, int>.Empty)];

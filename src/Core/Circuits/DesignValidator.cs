@@ -105,7 +105,7 @@ public static class DesignValidator
             {
                 problems.Add(new(path, "needs a node name"));
             }
-            else if (!nodes.ContainsKey(node) && !variableNames.Contains(node))
+            else if (node != BoardDesign.GroundNode && !nodes.ContainsKey(node) && !variableNames.Contains(node))
             {
                 problems.Add(new(path, $"no variable or block output is named '{node}'"));
             }
