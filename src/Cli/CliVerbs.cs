@@ -10,5 +10,6 @@ internal static class CliVerbs
         yield return Verbs.AboutVerb.Create(console);
         yield return Verbs.DesignVerb.Create(console);
         yield return Verbs.InspectVerb.Create(console);
+        yield return Verbs.SimulateVerb.Create(console);
     }
 }
