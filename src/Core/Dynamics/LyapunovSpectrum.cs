@@ -7,6 +7,9 @@ namespace Patchproof.Core.Dynamics;
 /// <param name="Duration">Iterations (maps) or time units (flows) averaged over.</param>
 public sealed record LyapunovSpectrum(double[] Exponents, double KaplanYorkeDimension, long Steps, double Duration)
 {
+    /// <summary>Null when the run completed; otherwise a sentence saying why it stopped early (the exponents then cover the completed part).</summary>
+    public string? Problem { get; init; }
+
     /// <summary>The sum of the exponents (the mean of ln |det J| per unit).</summary>
     public double Sum() => Exponents.Sum();
 
