@@ -217,6 +217,41 @@ internal sealed class CsvCaptureFileReader
         var nonFinite = new LineRanges();
         var comments = 0;
         var firstDataLine = 0;
+        var fastPathPossible = !whitespace;
+
+        // Appends a parsed row; false when its time runs backwards.
+        bool Append(double[] values, int lineNumber, ref int first)
+        {
+            if (timeColumn >= 0)
+            {
+                var t = values[timeColumn];
+                if (t < previousTime)
+                {
+                    return false;
+                }
+
+                previousTime = t;
+                previousTimeLine = lineNumber;
+                times!.Add(t);
+            }
+
+            for (var c = 0; c < values.Length; c++)
+            {
+                var s = slot[c];
+                if (s >= 0)
+                {
+                    channelBuffers[s].Add((float)values[c]);
+                }
+            }
+
+            if (first == 0)
+            {
+                first = lineNumber;
+            }
+
+            return true;
+        }
+
         while (lines.TryReadLine(out var line))
         {
             var lineNumber = lines.LineNumber;
@@ -239,6 +274,17 @@ internal sealed class CsvCaptureFileReader
             if (trimmed[0] == (byte)'#')
             {
                 comments++;
+                continue;
+            }
+
+            if (fastPathPossible && FastRowParser.TryParse(line, delimiter, separator, row, timeColumn, ref quantumExponent))
+            {
+                if (!Append(row, lineNumber, ref firstDataLine))
+                {
+                    return Fail<BodyColumns>(lineNumber, FieldColumn(line, dialect, timeColumn),
+                        $"Time runs backwards: {Format(row[timeColumn])} here after {Format(previousTime)} at line {previousTimeLine}; the rows must be in time order.");
+                }
+
                 continue;
             }
 
@@ -303,32 +349,10 @@ internal sealed class CsvCaptureFileReader
                 continue;
             }
 
-            if (timeColumn >= 0)
+            if (!Append(row, lineNumber, ref firstDataLine))
             {
-                var t = row[timeColumn];
-                if (t < previousTime)
-                {
-                    return Fail<BodyColumns>(lineNumber, FieldColumn(line, dialect, timeColumn),
-                        $"Time runs backwards: {Format(t)} here after {Format(previousTime)} at line {previousTimeLine}; the rows must be in time order.");
-                }
-
-                previousTime = t;
-                previousTimeLine = lineNumber;
-                times!.Add(t);
-            }
-
-            for (var c = 0; c < n; c++)
-            {
-                var s = slot[c];
-                if (s >= 0)
-                {
-                    channelBuffers[s].Add((float)row[c]);
-                }
-            }
-
-            if (firstDataLine == 0)
-            {
-                firstDataLine = lineNumber;
+                return Fail<BodyColumns>(lineNumber, FieldColumn(line, dialect, timeColumn),
+                    $"Time runs backwards: {Format(row[timeColumn])} here after {Format(previousTime)} at line {previousTimeLine}; the rows must be in time order.");
             }
         }
 
