@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using Patchproof.Core.Models;
 
 namespace Patchproof.Core.Simulation;
@@ -339,46 +341,53 @@ public sealed class DormandPrince45Stepper
 
     private double TryStep(double h, double newTime)
     {
+        // Implementation note: every buffer holds exactly `dimension` values, so the stage loops index
+        // through references without per-element bounds checks; for n = 3 those checks cost about as
+        // much as the arithmetic.
         var n = dimension;
-        var y0 = y.AsSpan(0, n);
-        var s = stage.AsSpan(0, n);
-        var f1 = k1.AsSpan(0, n);
-        var f2 = k2.AsSpan(0, n);
-        var f3 = k3.AsSpan(0, n);
-        var f4 = k4.AsSpan(0, n);
-        var f5 = k5.AsSpan(0, n);
-        var f6 = k6.AsSpan(0, n);
-        var f7 = k7.AsSpan(0, n);
-        var y1 = yNew.AsSpan(0, n);
-        var err = error.AsSpan(0, n);
+        ref var y0 = ref MemoryMarshal.GetArrayDataReference(y);
+        ref var s = ref MemoryMarshal.GetArrayDataReference(stage);
+        ref var f1 = ref MemoryMarshal.GetArrayDataReference(k1);
+        ref var f2 = ref MemoryMarshal.GetArrayDataReference(k2);
+        ref var f3 = ref MemoryMarshal.GetArrayDataReference(k3);
+        ref var f4 = ref MemoryMarshal.GetArrayDataReference(k4);
+        ref var f5 = ref MemoryMarshal.GetArrayDataReference(k5);
+        ref var f6 = ref MemoryMarshal.GetArrayDataReference(k6);
+        ref var f7 = ref MemoryMarshal.GetArrayDataReference(k7);
+        ref var y1 = ref MemoryMarshal.GetArrayDataReference(yNew);
+        ref var err = ref MemoryMarshal.GetArrayDataReference(error);
 
         for (var i = 0; i < n; i++)
         {
-            s[i] = y0[i] + (h * a21 * f1[i]);
+            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i) + (h * a21 * Unsafe.Add(ref f1, i));
         }
 
         EvaluateRightHandSide(time + (c2 * h), stage, k2);
         for (var i = 0; i < n; i++)
         {
-            s[i] = y0[i] + (h * ((a31 * f1[i]) + (a32 * f2[i])));
+            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i) + (h * ((a31 * Unsafe.Add(ref f1, i)) + (a32 * Unsafe.Add(ref f2, i))));
         }
 
         EvaluateRightHandSide(time + (c3 * h), stage, k3);
         for (var i = 0; i < n; i++)
         {
-            s[i] = y0[i] + (h * ((a41 * f1[i]) + (a42 * f2[i]) + (a43 * f3[i])));
+            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i)
+                + (h * ((a41 * Unsafe.Add(ref f1, i)) + (a42 * Unsafe.Add(ref f2, i)) + (a43 * Unsafe.Add(ref f3, i))));
         }
 
         EvaluateRightHandSide(time + (c4 * h), stage, k4);
         for (var i = 0; i < n; i++)
         {
-            s[i] = y0[i] + (h * ((a51 * f1[i]) + (a52 * f2[i]) + (a53 * f3[i]) + (a54 * f4[i])));
+            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i)
+                + (h * ((a51 * Unsafe.Add(ref f1, i)) + (a52 * Unsafe.Add(ref f2, i)) + (a53 * Unsafe.Add(ref f3, i)) + (a54 * Unsafe.Add(ref f4, i))));
         }
 
         EvaluateRightHandSide(time + (c5 * h), stage, k5);
         for (var i = 0; i < n; i++)
         {
-            s[i] = y0[i] + (h * ((a61 * f1[i]) + (a62 * f2[i]) + (a63 * f3[i]) + (a64 * f4[i]) + (a65 * f5[i])));
+            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i)
+                + (h * ((a61 * Unsafe.Add(ref f1, i)) + (a62 * Unsafe.Add(ref f2, i)) + (a63 * Unsafe.Add(ref f3, i))
+                    + (a64 * Unsafe.Add(ref f4, i)) + (a65 * Unsafe.Add(ref f5, i))));
         }
 
         // Stages 6 and 7 sit at c = 1: use newTime itself so no stage is evaluated past the end time.
@@ -386,16 +395,20 @@ public sealed class DormandPrince45Stepper
         var sum = 0.0;
         for (var i = 0; i < n; i++)
         {
-            var value = y0[i] + (h * ((b1 * f1[i]) + (b3 * f3[i]) + (b4 * f4[i]) + (b5 * f5[i]) + (b6 * f6[i])));
-            y1[i] = value;
+            var value = Unsafe.Add(ref y0, i)
+                + (h * ((b1 * Unsafe.Add(ref f1, i)) + (b3 * Unsafe.Add(ref f3, i)) + (b4 * Unsafe.Add(ref f4, i))
+                    + (b5 * Unsafe.Add(ref f5, i)) + (b6 * Unsafe.Add(ref f6, i))));
+            Unsafe.Add(ref y1, i) = value;
             sum += value;
         }
 
         EvaluateRightHandSide(newTime, yNew, k7);
         for (var i = 0; i < n; i++)
         {
-            err[i] = h * ((e1 * f1[i]) + (e3 * f3[i]) + (e4 * f4[i]) + (e5 * f5[i]) + (e6 * f6[i]) + (e7 * f7[i]));
-            sum += f7[i];
+            var seventh = Unsafe.Add(ref f7, i);
+            Unsafe.Add(ref err, i) = h * ((e1 * Unsafe.Add(ref f1, i)) + (e3 * Unsafe.Add(ref f3, i)) + (e4 * Unsafe.Add(ref f4, i))
+                + (e5 * Unsafe.Add(ref f5, i)) + (e6 * Unsafe.Add(ref f6, i)) + (e7 * seventh));
+            sum += seventh;
         }
 
         if (!double.IsFinite(sum))
@@ -403,7 +416,7 @@ public sealed class DormandPrince45Stepper
             return double.NaN;
         }
 
-        var norm = ScaledErrorNorm.Rms(err, y0, y1, absoluteTolerances, relativeTolerance);
+        var norm = ScaledErrorNorm.Rms(error, y, yNew, absoluteTolerances, relativeTolerance);
         return double.IsFinite(norm) ? norm : double.NaN;
     }
 

@@ -17,7 +17,7 @@ internal static class ScaledErrorNorm
         y = y[..count];
         yNew = yNew[..count];
         var sum = 0.0;
-        for (var i = 0; i < count; i++)
+        for (var i = 0; i < absoluteTolerances.Length; i++)
         {
             var scale = absoluteTolerances[i] + (relativeTolerance * Math.Max(Math.Abs(y[i]), Math.Abs(yNew[i])));
             var ratio = error[i] / scale;
