@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 namespace Patchproof.Core.Simulation;
 
 /// <summary>Shampine's 4th-order continuous extension of one Dormand-Prince step.</summary>
@@ -50,6 +51,7 @@ public sealed class DormandPrince45DenseOutput : IDenseOutput
     public void Evaluate(double time, Span<double> destination) => Interpolate(coefficients, Dimension, (time - startTime) / stepSize, destination);
 
     /// <summary>Writes r1..r5 for one step into <paramref name="coefficients"/> (5 N values).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static void ComputeCoefficients(
         double stepSize,
         ReadOnlySpan<double> y0,
@@ -89,6 +91,7 @@ public sealed class DormandPrince45DenseOutput : IDenseOutput
     }
 
     /// <summary>Evaluates the interpolant with coefficients r1..r5 at θ.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static void Interpolate(ReadOnlySpan<double> coefficients, int dimension, double theta, Span<double> destination)
     {
         var count = destination.Length;

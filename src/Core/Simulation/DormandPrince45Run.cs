@@ -1,8 +1,10 @@
+using System.Runtime.CompilerServices;
 namespace Patchproof.Core.Simulation;
 
 /// <summary>Drives a <see cref="DormandPrince45Stepper"/> to the end, recording steps or samples, events and dense output.</summary>
 internal static class DormandPrince45Run
 {
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static OdeSolution Solve(OdeProblem problem, DormandPrince45 options)
     {
         var stepper = new DormandPrince45Stepper(problem, options);

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 namespace Patchproof.Core.Simulation;
 
 /// <summary>The RMS error norm used to accept or reject a step.</summary>
@@ -10,6 +11,7 @@ namespace Patchproof.Core.Simulation;
 internal static class ScaledErrorNorm
 {
     /// <summary>The scaled RMS norm of <paramref name="error"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double Rms(ReadOnlySpan<double> error, ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> absoluteTolerances, double relativeTolerance)
     {
         var count = absoluteTolerances.Length;

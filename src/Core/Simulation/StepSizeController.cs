@@ -38,16 +38,20 @@ public sealed record StepSizeController
     /// <param name="previousErrorNorm">The error norm of the previous accepted step (at least 1e-4).</param>
     /// <param name="previousStepRejected">Whether the attempt before this one was rejected.</param>
     /// <returns>h_new / h: below 1 when <paramref name="errorNorm"/> &gt; 1 (the step is rejected).</returns>
-    public double ProposeFactor(double errorNorm, double previousErrorNorm, bool previousStepRejected)
+    public double ProposeFactor(double errorNorm, double previousErrorNorm, bool previousStepRejected) =>
+        ProposeFactorFromLogarithms(Math.Log(errorNorm), Math.Log(previousErrorNorm), previousStepRejected);
+
+    /// <summary>As <see cref="ProposeFactor"/>, with both norms given as natural logarithms so a step needs one logarithm and one exponential.</summary>
+    internal double ProposeFactorFromLogarithms(double logErrorNorm, double logPreviousErrorNorm, bool previousStepRejected)
     {
-        if (errorNorm > 1.0)
+        if (logErrorNorm > 0.0)
         {
-            return Math.Max(MinFactor, Safety * Math.Pow(errorNorm, -Alpha));
+            return Math.Max(MinFactor, Safety * Math.Exp(-Alpha * logErrorNorm));
         }
 
-        var factor = errorNorm == 0.0
+        var factor = double.IsNegativeInfinity(logErrorNorm)
             ? MaxFactor
-            : Safety * Math.Pow(errorNorm, -Alpha) * Math.Pow(previousErrorNorm, Beta);
+            : Safety * Math.Exp((Beta * logPreviousErrorNorm) - (Alpha * logErrorNorm));
         factor = Math.Clamp(factor, MinFactor, MaxFactor);
         return previousStepRejected ? Math.Min(factor, 1.0) : factor;
     }
