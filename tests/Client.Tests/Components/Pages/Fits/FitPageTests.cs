@@ -1,0 +1,76 @@
+using Bunit;
+using Microsoft.Extensions.DependencyInjection;
+using Patchproof.Client.Components.Pages.Fits;
+using Patchproof.Client.Models;
+using Patchproof.Client.Services;
+using Patchproof.Client.Tests.Fakes;
+
+namespace Patchproof.Client.Tests.Components.Pages.Fits;
+
+public sealed class FitPageTests : BunitContext
+{
+    private readonly FakePatchproofApi api = new();
+
+    public FitPageTests() => Services.AddSingleton<IPatchproofApi>(api);
+
+    private IRenderedComponent<FitPage> RenderPage() =>
+        Render<FitPage>(ps => ps.Add(p => p.FitId, DemoData.FitId).Add(p => p.PollInterval, TimeSpan.FromMilliseconds(20)));
+
+    [Fact]
+    public void Render_WhileLoading_ShowsPending()
+    {
+        api.Fit = FakePatchproofApi.Never<FitJob>;
+
+        var cut = RenderPage();
+
+        Assert.Contains("Loading the fit", cut.Find("[role=status]").TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Render_FitMissing_ShowsTheProblem()
+    {
+        api.Fit = () => FakePatchproofApi.Problem<FitJob>(404, "No such fit");
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Contains("No such fit", cut.Find("[role=alert]").TextContent, StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Render_Running_PollsUntilItSucceedsThenLinksTheReport()
+    {
+        var answers = new Queue<FitJob>([DemoData.FitJob(FitJobState.Running, 0.3), DemoData.FitJob(FitJobState.Running, 0.7), DemoData.FitJob(FitJobState.Succeeded, 1)]);
+        api.Fit = () => FakePatchproofApi.Ok(answers.Count > 1 ? answers.Dequeue() : answers.Peek());
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Contains("running, 30 % · multiple shooting", cut.Find(".state").TextContent, StringComparison.Ordinal));
+        cut.WaitForAssertion(() => Assert.Equal($"fits/{DemoData.FitId}/report", cut.Find("a.button").GetAttribute("href")), TimeSpan.FromSeconds(10));
+        Assert.Equal("finished", cut.Find(".state").TextContent);
+        Assert.Empty(cut.FindAll("button"));
+    }
+
+    [Fact]
+    public void Cancel_WhileRunning_AsksTheServerAndShowsCancelling()
+    {
+        api.Fit = () => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Running, 0.5));
+        api.CancelFit = () => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Running, 0.5, cancelRequested: true));
+        var cut = RenderPage();
+        cut.WaitForAssertion(() => cut.Find("button"));
+
+        cut.Find("button").Click();
+
+        Assert.Equal(1, api.CancelCalls);
+        cut.WaitForAssertion(() => Assert.StartsWith("cancelling", cut.Find(".state").TextContent, StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Render_Failed_ShowsWhy()
+    {
+        api.Fit = () => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Failed));
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Contains("shorter than one Lyapunov time", cut.Find("[role=alert]").TextContent, StringComparison.Ordinal));
+    }
+}

@@ -1,0 +1,94 @@
+using Bunit;
+using Microsoft.Extensions.DependencyInjection;
+using Patchproof.Client.Components.Pages.Reports;
+using Patchproof.Client.Models;
+using Patchproof.Client.Services;
+using Patchproof.Client.Tests.Fakes;
+
+namespace Patchproof.Client.Tests.Components.Pages.Reports;
+
+public sealed class ReportPageTests : BunitContext
+{
+    private readonly FakePatchproofApi api = new();
+
+    public ReportPageTests()
+    {
+        JSInterop.Mode = JSRuntimeMode.Loose;
+        Services.AddSingleton<IPatchproofApi>(api);
+    }
+
+    private IRenderedComponent<ReportPage> RenderPage() => Render<ReportPage>(ps => ps.Add(p => p.FitId, DemoData.FitId));
+
+    [Fact]
+    public void Render_WhileLoading_ShowsPending()
+    {
+        api.Report = FakePatchproofApi.Never<FitReportView>();
+
+        var cut = RenderPage();
+
+        Assert.Contains("Loading the report", cut.Find("[role=status]").TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Render_NotFinished_ShowsTheServersReason()
+    {
+        api.Report = FakePatchproofApi.Problem<FitReportView>(409, "No report", "The fit is Running; only a fit that succeeded has a report.");
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Contains("only a fit that succeeded has a report", cut.Find("[role=alert]").TextContent, StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Render_Loaded_PutsTheFindingsFirstWithHowFarHowSureAndWhatToDo()
+    {
+        api.Report = FakePatchproofApi.Ok(DemoData.Report);
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() =>
+        {
+            var headings = cut.FindAll("h2").Select(h => h.TextContent).ToList();
+            Assert.Equal("Findings", headings[0]);
+            var first = cut.Find(".finding");
+            Assert.Equal("R5", first.QuerySelector(".part")!.TextContent);
+            Assert.Contains("35.7 kOhm nominal behaves like 39.3 kOhm ± 420 Ohm", first.TextContent, StringComparison.Ordinal);
+            Assert.Contains("+10.1 %", first.TextContent, StringComparison.Ordinal);
+            Assert.Contains("probability 0.97; next best: C2 5 % low", first.TextContent, StringComparison.Ordinal);
+            Assert.Contains("Measure R5 out of circuit", first.TextContent, StringComparison.Ordinal);
+        });
+    }
+
+    [Fact]
+    public void Render_Loaded_ShowsNumbersExportsAndComparison()
+    {
+        api.Report = FakePatchproofApi.Ok(DemoData.Report);
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() =>
+        {
+            Assert.Contains("−9.2 %", cut.FindAll("table.data")[0].TextContent, StringComparison.Ordinal);
+            Assert.Contains("+0.2 %", cut.Find(".timescale").TextContent, StringComparison.Ordinal);
+            Assert.Contains("Passed:", cut.Markup, StringComparison.Ordinal);
+            Assert.Equal(["JSON", "CSV of coefficients and findings", "Printable page"], cut.FindAll(".exports a").Select(a => a.TextContent));
+            Assert.Contains("report.csv", cut.FindAll(".exports a")[1].GetAttribute("href"), StringComparison.Ordinal);
+            Assert.Equal("Phase planes (1)", cut.Find("[role=tab][aria-selected=true]").TextContent);
+            Assert.Single(cut.FindAll(".overlay-chart"));
+        });
+    }
+
+    [Fact]
+    public void Render_NoFindingsNoPlots_SaysSo()
+    {
+        api.Report = FakePatchproofApi.Ok(DemoData.Report with { Findings = [], Plots = ComparisonPlots.Empty });
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() =>
+        {
+            Assert.Contains("The diagnosis names no part.", cut.Markup, StringComparison.Ordinal);
+            Assert.Contains("This report carries no comparison series.", cut.Markup, StringComparison.Ordinal);
+        });
+    }
+}
