@@ -67,7 +67,7 @@ public sealed class Browser : IAsyncLifetime
 
     /// <summary>Saves a full-page screenshot as <c>artifacts/e2e/NAME.png</c>.</summary>
     public static async Task SaveScreenshotAsync(IPage page, string name) =>
-        await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(ArtifactsFolder, name + ".png"), FullPage = true });
+        await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(ArtifactsFolder, name + ".png"), FullPage = true, Timeout = 120_000 });
 
     public async ValueTask DisposeAsync()
     {

@@ -52,8 +52,8 @@ public sealed class PlotDrawingTests(LiveServer server, Browser browser)
 
         Assert.True(figures[2] <= 3 * 20_001, $"{figures[2]} points were drawn; the decimated series hold at most 20,000 per trace.");
         Assert.Equal(3, await page.Locator("#perf-plot .scatterlayer .trace").CountAsync());
-        await Browser.SaveScreenshotAsync(page, "overlay-1M-decimated");
         await Timings.RecordAsync("overlay-1M-draw-ms", figures[0]);
         await Timings.RecordAsync("overlay-1M-zoom-ms", figures[1]);
+        await Browser.SaveScreenshotAsync(page, "overlay-1M-decimated");
     }
 }
