@@ -188,6 +188,14 @@ public static class RosensteinLyapunov
         var dimension = trajectory.Dimension;
         var coordinates = trajectory.Coordinates;
         var references = 0;
+
+        // Implementation note: products of squared distances over blocks of 8 reference points
+        // take one logarithm per block instead of one per pair; each factor is clamped to
+        // [1e-36, 1e36], so a block's product stays well inside the range of a double.
+        const int block = 8;
+        var products = new double[length];
+        Array.Fill(products, 1.0);
+        var inBlock = 0;
         for (var j = 0; j < usable; j += stride)
         {
             var neighbour = neighbours[j];
@@ -197,6 +205,12 @@ public static class RosensteinLyapunov
             }
 
             references++;
+            if (++inBlock == block)
+            {
+                Flush(sums, products);
+                inBlock = 0;
+            }
+
             for (var k = 0; k < length; k++)
             {
                 var a = (j + k) * dimension;
@@ -210,11 +224,13 @@ public static class RosensteinLyapunov
 
                 if (d2 > 0)
                 {
-                    sums[k] += 0.5 * Math.Log(d2);
+                    products[k] *= Math.Clamp(d2, 1e-36, 1e36);
                     counts[k]++;
                 }
             }
         }
+
+        Flush(sums, products);
 
         var curve = new double[length];
         for (var k = 0; k < length; k++)
@@ -223,6 +239,15 @@ public static class RosensteinLyapunov
         }
 
         return (curve, references);
+    }
+
+    private static void Flush(double[] sums, double[] products)
+    {
+        for (var k = 0; k < sums.Length; k++)
+        {
+            sums[k] += 0.5 * Math.Log(products[k]);
+            products[k] = 1;
+        }
     }
 
     private static bool HasLevelledOff(double[] curve)
