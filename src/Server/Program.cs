@@ -1,12 +1,14 @@
-using Patchproof.Server.Apis;
 using Patchproof.Server.Extensions;
 
 var builder = WebApplication.CreateBuilder(args);
 builder.AddPatchproofServices();
+builder.AddPatchproofPersistence();
+builder.AddPatchproofCaptures();
+builder.AddPatchproofFitJobs();
 
 var app = builder.Build();
 app.UsePatchproofPipeline();
-app.MapHealthEndpoints();
+app.MapPatchproofApi();
 app.MapClientFallback();
 app.Run();
 

@@ -1,4 +1,11 @@
 using Microsoft.AspNetCore.Hosting.StaticWebAssets;
+using Microsoft.Extensions.Options;
+using Patchproof.Server.Captures;
+using Patchproof.Server.Data;
+using Patchproof.Server.Designs;
+using Patchproof.Server.Fits;
+using Patchproof.Server.Seeding;
+using Patchproof.Server.Storage;
 
 namespace Patchproof.Server.Extensions;
 
@@ -12,6 +19,38 @@ internal static class ServiceRegistration
         builder.Services.AddProblemDetails();
         builder.Services.AddOpenApi();
         builder.Services.AddSingleton(TimeProvider.System);
+        return builder;
+    }
+
+    /// <summary>The database (SQLite in the data folder, or PostgreSQL), created or migrated at start, with the demo scenario.</summary>
+    public static WebApplicationBuilder AddPatchproofPersistence(this WebApplicationBuilder builder)
+    {
+        builder.Services.AddOptions<PatchproofOptions>().Bind(builder.Configuration.GetSection(PatchproofOptions.SectionName));
+        // Read when the first context is made, so settings added by a host (tests, for one) count.
+        builder.Services.AddDbContextFactory<PatchproofDbContext>((services, options) => DatabaseProvider.Configure(
+            options,
+            services.GetRequiredService<IConfiguration>().GetConnectionString(DatabaseProvider.PostgresConnectionName),
+            services.GetRequiredService<IOptions<PatchproofOptions>>().Value.DataFolderPath));
+        builder.Services.AddSingleton<CaptureStore>();
+        builder.Services.AddSingleton<IDesignDocumentValidator, JsonDesignDocumentValidator>();
+        builder.Services.AddScoped<DemoScenarioSeeder>();
+        builder.Services.AddHostedService<DatabaseStartup>();
+        return builder;
+    }
+
+    /// <summary>Capture uploads, when a capture reader is registered.</summary>
+    public static WebApplicationBuilder AddPatchproofCaptures(this WebApplicationBuilder builder)
+    {
+        builder.Services.AddScoped(services => services.GetService<ICaptureFileReader>() is null ? null! : ActivatorUtilities.CreateInstance<CaptureIngest>(services));
+        return builder;
+    }
+
+    /// <summary>The fit job queue and this process's runner; fits start only when a fit engine (<see cref="IFitJobExecutor"/>) is registered.</summary>
+    public static WebApplicationBuilder AddPatchproofFitJobs(this WebApplicationBuilder builder)
+    {
+        builder.Services.AddSingleton<FitJobQueue>();
+        builder.Services.AddSingleton<FitJobSignal>();
+        builder.Services.AddHostedService<FitJobRunner>();
         return builder;
     }
 }

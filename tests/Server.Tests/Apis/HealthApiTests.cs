@@ -1,17 +1,18 @@
 using System.Net;
 using System.Net.Http.Json;
 using Patchproof.Contracts.Health;
+using Patchproof.Server.Tests.Hosting;
 
 namespace Patchproof.Server.Tests.Apis;
 
-public sealed class HealthApiTests(PatchproofServerFactory factory) : IClassFixture<PatchproofServerFactory>
+public sealed class HealthApiTests
 {
     [Fact]
     public async Task GetHealth_ServerUp_AnswersOkWithCoreVersion()
     {
-        using var client = factory.CreateClient();
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite);
 
-        var health = await client.GetFromJsonAsync<HealthResponse>("/api/health", TestContext.Current.CancellationToken);
+        var health = await api.Client.GetFromJsonAsync<HealthResponse>("/api/health", ApiTest.Token);
 
         Assert.NotNull(health);
         Assert.Equal("ok", health.Status);
@@ -21,32 +22,34 @@ public sealed class HealthApiTests(PatchproofServerFactory factory) : IClassFixt
     [Fact]
     public async Task UnknownApiRoute_AnswersProblemDetails404_NotTheClientPage()
     {
-        using var client = factory.CreateClient();
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite);
 
-        using var response = await client.GetAsync("/api/no-such-resource", TestContext.Current.CancellationToken);
+        using var response = await api.Client.GetAsync("/api/no-such-resource", ApiTest.Token);
 
-        Assert.Equal(HttpStatusCode.NotFound, response.StatusCode);
-        Assert.Equal("application/problem+json", response.Content.Headers.ContentType?.MediaType);
+        await ApiTest.ReadProblemAsync(response, HttpStatusCode.NotFound);
     }
 
     [Fact]
     public async Task ClientRoute_ServesTheStartPage()
     {
-        using var client = factory.CreateClient();
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite);
 
-        var page = await client.GetStringAsync("/boards/anything", TestContext.Current.CancellationToken);
+        var page = await api.Client.GetStringAsync("/boards/anything", ApiTest.Token);
 
         Assert.Contains("<div id=\"app\">", page, StringComparison.Ordinal);
         Assert.Contains("_framework/blazor.webassembly.js", page, StringComparison.Ordinal);
     }
 
     [Fact]
-    public async Task OpenApiDocument_DescribesTheHealthEndpoint()
+    public async Task OpenApiDocument_DescribesEveryResource()
     {
-        using var client = factory.CreateClient();
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite);
 
-        var document = await client.GetStringAsync("/api/openapi/v1.json", TestContext.Current.CancellationToken);
+        var document = await api.Client.GetStringAsync("/api/openapi/v1.json", ApiTest.Token);
 
-        Assert.Contains("/api/health", document, StringComparison.Ordinal);
+        foreach (var path in new[] { "/api/health", "/api/benches", "/api/boards/{boardId}", "/api/boards/{boardId}/designs", "/api/boards/{boardId}/captures", "/api/fits", "/api/fits/{fitId}/cancel", "/api/fits/{fitId}/report" })
+        {
+            Assert.Contains($"\"{path}\"", document, StringComparison.Ordinal);
+        }
     }
 }

@@ -1,0 +1,19 @@
+using Patchproof.Server.Apis;
+
+namespace Patchproof.Server.Extensions;
+
+/// <summary>Maps every API group.</summary>
+internal static class EndpointMapping
+{
+    public static WebApplication MapPatchproofApi(this WebApplication app)
+    {
+        app.MapHealthEndpoints();
+        app.MapBenchEndpoints();
+        app.MapBoardEndpoints();
+        app.MapDesignEndpoints();
+        app.MapCaptureEndpoints();
+        app.MapFitEndpoints();
+        app.MapReportEndpoints();
+        return app;
+    }
+}
