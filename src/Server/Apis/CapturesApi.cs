@@ -17,7 +17,6 @@ internal static class CapturesApi
         var boardCaptures = routes.MapGroup("/api/boards/{boardId:guid}/captures").WithTags("Captures");
         boardCaptures.MapPost("/", UploadAsync).WithName("UploadCapture")
             .WithSummary("Uploads one capture CSV (multipart/form-data, part 'file'); answers with the capture checks.")
-            .Accepts<IFormFile>("multipart/form-data")
             .Produces<CaptureResponse>(StatusCodes.Status201Created)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
             .ProducesProblem(StatusCodes.Status415UnsupportedMediaType)

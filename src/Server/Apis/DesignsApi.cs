@@ -19,8 +19,7 @@ internal static class DesignsApi
         var designs = routes.MapGroup("/api/boards/{boardId:guid}/designs").WithTags("Designs");
         designs.MapGet("/", ListAsync).WithName("ListDesignVersions").WithSummary("Lists a board's design versions, newest first.");
         designs.MapPost("/", CreateAsync).WithName("CreateDesignVersion")
-            .WithSummary("Stores the JSON request body as the board's next design version; ?note= says what changed.")
-            .Accepts<JsonElement>("application/json")
+            .WithSummary("Stores the JSON request body (application/json) as the board's next design version; ?note= says what changed.")
             .ProducesProblem(StatusCodes.Status422UnprocessableEntity)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge);
         designs.MapGet("/latest", GetLatestAsync).WithName("GetLatestDesignVersion").WithSummary("Reads the newest design version with its document.");
