@@ -56,6 +56,9 @@ internal sealed class DemoSettings
     /// <summary>Load the demo bench and boards on start when they are not there yet.</summary>
     public bool Seed { get; set; } = true;
 
-    /// <summary>The folder of demo designs and captures; when null, the first <c>sample-captures</c> folder found above the app's folder.</summary>
-    public string? Folder { get; set; }
+    /// <summary>The folder of demo design files; when null, the first <c>designs</c> folder found above the app's folder.</summary>
+    public string? DesignsFolder { get; set; }
+
+    /// <summary>The folder of demo captures; when null, the first <c>sample-captures</c> folder found above the app's folder.</summary>
+    public string? CapturesFolder { get; set; }
 }

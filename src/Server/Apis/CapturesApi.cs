@@ -30,18 +30,11 @@ internal static class CapturesApi
         return routes;
     }
 
-    private static async Task<IResult> UploadAsync(Guid boardId, HttpContext context, PatchproofDbContext db, IOptions<PatchproofOptions> options, CancellationToken cancellationToken)
+    private static async Task<IResult> UploadAsync(Guid boardId, HttpContext context, PatchproofDbContext db, CaptureIngest ingest, IOptions<PatchproofOptions> options, CancellationToken cancellationToken)
     {
         if (!await db.Boards.AnyAsync(b => b.Id == boardId, cancellationToken))
         {
             return ApiProblems.NotFound("board", boardId);
-        }
-
-        var ingest = context.RequestServices.GetService<CaptureIngest>();
-        if (ingest is null)
-        {
-            return TypedResults.Problem(statusCode: StatusCodes.Status501NotImplemented, title: "Capture reading is not available",
-                detail: "This server has no capture reader; captures cannot be stored.");
         }
 
         if (context.Features.Get<IHttpMaxRequestBodySizeFeature>() is { IsReadOnly: false } bodyLimit)

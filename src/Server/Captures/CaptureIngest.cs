@@ -82,7 +82,7 @@ internal sealed class CaptureIngest(
                 return copyProblem;
             }
 
-            var reading = await reader.ReadAsync(tempCsv, fileName, tempSamples, Limits.MaxRows, cancellationToken);
+            var reading = await reader.ReadAsync(tempCsv, fileName, tempSamples, cancellationToken);
             if (!reading.Success)
             {
                 return CaptureIngestOutcome.Unreadable(fileName, reading.Errors);
@@ -105,10 +105,10 @@ internal sealed class CaptureIngest(
                 Sha256 = copied.Sha256,
                 SizeBytes = copied.Length,
                 RowCount = reading.RowCount,
-                ChannelNamesJson = JsonSerializer.Serialize(reading.ChannelNames),
+                ChannelsJson = JsonSerializer.Serialize(reading.Channels),
                 SampleIntervalSeconds = reading.SampleIntervalSeconds,
                 DurationSeconds = reading.DurationSeconds,
-                ChecksJson = JsonSerializer.Serialize(reading.Checks.Select(ToCheck).ToList()),
+                ChecksJson = JsonSerializer.Serialize(reading.Checks),
                 UploadedAtUnixMs = TimeStamps.ToUnixMs(time.GetUtcNow()),
             };
             db.Captures.Add(capture);
@@ -180,12 +180,9 @@ internal sealed class CaptureIngest(
         return string.IsNullOrWhiteSpace(name) ? "capture.csv" : name.Length > 200 ? name[..200] : name;
     }
 
-    internal static CaptureCheck ToCheck(SourceDiagnostic diagnostic) =>
-        new(diagnostic.Severity.ToString().ToLowerInvariant(), diagnostic.Line, diagnostic.Column, diagnostic.Message);
-
     internal static CaptureResponse ToResponse(CaptureRecord capture) =>
         new(capture.Id, capture.BoardId, capture.FileName, capture.Sha256, capture.SizeBytes, capture.RowCount,
-            JsonSerializer.Deserialize<List<string>>(capture.ChannelNamesJson) ?? [],
+            JsonSerializer.Deserialize<List<CaptureChannelInfo>>(capture.ChannelsJson) ?? [],
             capture.SampleIntervalSeconds, capture.DurationSeconds,
             JsonSerializer.Deserialize<List<CaptureCheck>>(capture.ChecksJson) ?? [],
             TimeStamps.FromUnixMs(capture.UploadedAtUnixMs));

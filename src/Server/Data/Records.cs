@@ -54,7 +54,7 @@ internal sealed class CaptureRecord
     public required string Sha256 { get; set; }
     public long SizeBytes { get; set; }
     public long RowCount { get; set; }
-    public required string ChannelNamesJson { get; set; }
+    public required string ChannelsJson { get; set; }
     public double? SampleIntervalSeconds { get; set; }
     public double DurationSeconds { get; set; }
     public required string ChecksJson { get; set; }

@@ -32,16 +32,17 @@ internal static class ServiceRegistration
             services.GetRequiredService<IConfiguration>().GetConnectionString(DatabaseProvider.PostgresConnectionName),
             services.GetRequiredService<IOptions<PatchproofOptions>>().Value.DataFolderPath));
         builder.Services.AddSingleton<CaptureStore>();
-        builder.Services.AddSingleton<IDesignDocumentValidator, JsonDesignDocumentValidator>();
+        builder.Services.AddSingleton<IDesignDocumentValidator, DesignFileValidator>();
         builder.Services.AddScoped<DemoScenarioSeeder>();
         builder.Services.AddHostedService<DatabaseStartup>();
         return builder;
     }
 
-    /// <summary>Capture uploads, when a capture reader is registered.</summary>
+    /// <summary>Capture uploads: the core's reader and checks behind a streaming, content-addressed store.</summary>
     public static WebApplicationBuilder AddPatchproofCaptures(this WebApplicationBuilder builder)
     {
-        builder.Services.AddScoped(services => services.GetService<ICaptureFileReader>() is null ? null! : ActivatorUtilities.CreateInstance<CaptureIngest>(services));
+        builder.Services.AddSingleton<ICaptureFileReader, InspectingCaptureFileReader>();
+        builder.Services.AddScoped<CaptureIngest>();
         return builder;
     }
 

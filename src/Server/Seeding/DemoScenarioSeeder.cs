@@ -8,11 +8,12 @@ namespace Patchproof.Server.Seeding;
 
 /// <summary>Loads the demo bench and boards, and any demo designs and captures found on disk; running it again adds nothing twice.</summary>
 /// <remarks>
-/// Demo files are looked up in the demo folder (<c>Patchproof:Demo:Folder</c>, or the first
-/// <c>sample-captures</c> folder above the app): a file belongs to a board when its name starts
-/// with the board's code or it lies in a folder named after the code. <c>*.json</c> files are
-/// design documents (stored as version 1 when the board has no design yet), <c>*.csv</c> files are
-/// captures (stored unless the board already has a capture with the same bytes).
+/// Design files (<c>*.json</c>) come from <c>Patchproof:Demo:DesignsFolder</c> (default: the first
+/// <c>designs</c> folder above the app), captures (<c>*.csv</c>) from
+/// <c>Patchproof:Demo:CapturesFolder</c> (default: the first <c>sample-captures</c> folder). A file
+/// belongs to a board when its name starts with the board's code (any case) or it lies in a folder
+/// named after the code. A design is stored as version 1 when the board has none yet; a capture is
+/// stored unless the board already has one with the same bytes.
 /// </remarks>
 internal sealed partial class DemoScenarioSeeder(
     PatchproofDbContext db,
@@ -20,19 +21,18 @@ internal sealed partial class DemoScenarioSeeder(
     TimeProvider time,
     IOptions<PatchproofOptions> options,
     ILogger<DemoScenarioSeeder> logger,
-    CaptureIngest? ingest = null)
+    CaptureIngest ingest)
 {
     public async Task SeedAsync(CancellationToken cancellationToken)
     {
         var bench = await EnsureBenchAsync(cancellationToken);
-        var folder = FindDemoFolder();
+        var designs = FindFolder(options.Value.Demo.DesignsFolder, "designs");
+        var captures = FindFolder(options.Value.Demo.CapturesFolder, "sample-captures");
         foreach (var demo in DemoScenario.Boards)
         {
             var board = await EnsureBoardAsync(bench.Id, demo, cancellationToken);
-            if (folder is not null)
-            {
-                await SeedFilesAsync(board, FilesOf(folder, demo.Code), cancellationToken);
-            }
+            await SeedDesignAsync(board, FilesOf(designs, demo.Code, ".json"), cancellationToken);
+            await SeedCapturesAsync(board, FilesOf(captures, demo.Code, ".csv"), cancellationToken);
         }
     }
 
@@ -86,9 +86,9 @@ internal sealed partial class DemoScenarioSeeder(
             : await db.Boards.SingleAsync(b => b.BenchId == benchId && b.Code == demo.Code, cancellationToken);
     }
 
-    private async Task SeedFilesAsync(BoardRecord board, IReadOnlyList<string> files, CancellationToken cancellationToken)
+    private async Task SeedDesignAsync(BoardRecord board, IReadOnlyList<string> files, CancellationToken cancellationToken)
     {
-        var design = files.FirstOrDefault(f => f.EndsWith(".json", StringComparison.OrdinalIgnoreCase));
+        var design = files.FirstOrDefault();
         if (design is not null && !await db.DesignVersions.AnyAsync(d => d.BoardId == board.Id, cancellationToken))
         {
             var document = await File.ReadAllTextAsync(design, cancellationToken);
@@ -111,13 +111,11 @@ internal sealed partial class DemoScenarioSeeder(
                 await TrySaveAsync(cancellationToken);
             }
         }
+    }
 
-        if (ingest is null)
-        {
-            return;
-        }
-
-        foreach (var capture in files.Where(f => f.EndsWith(".csv", StringComparison.OrdinalIgnoreCase)))
+    private async Task SeedCapturesAsync(BoardRecord board, IReadOnlyList<string> files, CancellationToken cancellationToken)
+    {
+        foreach (var capture in files)
         {
             var sha = await Sha256OfAsync(capture, cancellationToken);
             if (await db.Captures.AnyAsync(c => c.BoardId == board.Id && c.Sha256 == sha, cancellationToken))
@@ -148,9 +146,9 @@ internal sealed partial class DemoScenarioSeeder(
         }
     }
 
-    private string? FindDemoFolder()
+    private static string? FindFolder(string? configured, string defaultName)
     {
-        if (options.Value.Demo.Folder is { } configured)
+        if (configured is not null)
         {
             var path = Path.GetFullPath(configured, AppContext.BaseDirectory);
             return Directory.Exists(path) ? path : null;
@@ -158,7 +156,7 @@ internal sealed partial class DemoScenarioSeeder(
 
         for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
         {
-            var candidate = Path.Combine(dir.FullName, "sample-captures");
+            var candidate = Path.Combine(dir.FullName, defaultName);
             if (Directory.Exists(candidate))
             {
                 return candidate;
@@ -168,8 +166,8 @@ internal sealed partial class DemoScenarioSeeder(
         return null;
     }
 
-    private static IReadOnlyList<string> FilesOf(string folder, string code) =>
-        Directory.EnumerateFiles(folder, "*", SearchOption.AllDirectories)
+    private static IReadOnlyList<string> FilesOf(string? folder, string code, string extension) => folder is null ? [] :
+        Directory.EnumerateFiles(folder, "*" + extension, SearchOption.AllDirectories)
             .Where(f => Path.GetFileName(f).StartsWith(code, StringComparison.OrdinalIgnoreCase)
                 || Path.GetRelativePath(folder, f).Split(Path.DirectorySeparatorChar).SkipLast(1).Any(part => part.Equals(code, StringComparison.OrdinalIgnoreCase)))
             .Order(StringComparer.Ordinal)

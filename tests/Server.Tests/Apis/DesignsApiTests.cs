@@ -14,8 +14,8 @@ public abstract class DesignsApiTests(ServerDatabase database)
         await using var api = ApiTest.Start(database);
         var board = await api.CreateBoardAsync();
 
-        var first = await api.CreateDesignAsync(board.Id, """{"rev":"a"}""");
-        var second = await api.CreateDesignAsync(board.Id, """{"rev":"b"}""");
+        var first = await api.CreateDesignAsync(board.Id);
+        var second = await api.CreateDesignAsync(board.Id, RevisedDesign);
         var listed = await api.Client.GetFromJsonAsync<List<DesignVersionSummary>>($"/api/boards/{board.Id}/designs", ApiTest.Token);
         var boardNow = await api.Client.GetFromJsonAsync<BoardResponse>($"/api/boards/{board.Id}", ApiTest.Token);
 
@@ -29,17 +29,17 @@ public abstract class DesignsApiTests(ServerDatabase database)
     {
         await using var api = ApiTest.Start(database);
         var board = await api.CreateBoardAsync();
-        await api.CreateDesignAsync(board.Id, """{"rev":"a"}""");
-        using var content = new StringContent("""{"rev":"b","parts":[1,2]}""", System.Text.Encoding.UTF8, "application/json");
+        await api.CreateDesignAsync(board.Id);
+        using var content = new StringContent(RevisedDesign, System.Text.Encoding.UTF8, "application/json");
         (await api.Client.PostAsync($"/api/boards/{board.Id}/designs?note=R5%20replaced", content, ApiTest.Token)).Dispose();
 
         var first = await api.Client.GetFromJsonAsync<DesignVersionResponse>($"/api/boards/{board.Id}/designs/1", ApiTest.Token);
         var latest = await api.Client.GetFromJsonAsync<DesignVersionResponse>($"/api/boards/{board.Id}/designs/latest", ApiTest.Token);
 
-        Assert.Equal("a", first!.Document.GetProperty("rev").GetString());
+        Assert.Equal("Wren", first!.Document.GetProperty("title").GetString());
         Assert.Equal(2, latest!.Version);
         Assert.Equal("R5 replaced", latest.Note);
-        Assert.Equal(2, latest.Document.GetProperty("parts").GetArrayLength());
+        Assert.Equal("Wren rev b", latest.Document.GetProperty("title").GetString());
     }
 
     [Fact]
@@ -48,14 +48,28 @@ public abstract class DesignsApiTests(ServerDatabase database)
         await using var api = ApiTest.Start(database);
         var board = await api.CreateBoardAsync();
 
-        using var content = new StringContent("{\n  \"rev\": \"a\",\n  \"parts\": [1, 2,, 3]\n}", System.Text.Encoding.UTF8, "application/json");
+        var broken = ApiTest.DemoDesign.Replace("\"title\": \"Wren\",", "\"title\": \"Wren\",,", StringComparison.Ordinal);
+        using var content = new StringContent(broken, System.Text.Encoding.UTF8, "application/json");
         using var response = await api.Client.PostAsync($"/api/boards/{board.Id}/designs", content, ApiTest.Token);
 
         var problem = await ApiTest.ReadProblemAsync(response, HttpStatusCode.UnprocessableEntity);
-        Assert.Equal(3, problem.GetProperty("line").GetInt32());
-        Assert.Equal(18, problem.GetProperty("column").GetInt32()); // the second comma of "2,,"
+        Assert.Equal(5, problem.GetProperty("line").GetInt32());
+        Assert.Equal(19, problem.GetProperty("column").GetInt32()); // the second comma after "Wren"
         var listed = await api.Client.GetFromJsonAsync<List<DesignVersionSummary>>($"/api/boards/{board.Id}/designs", ApiTest.Token);
         Assert.Empty(listed!);
+    }
+
+    [Fact]
+    public async Task CreateDesign_JsonThatIsNoDesign_IsRefusedWithTheReadersErrors()
+    {
+        await using var api = ApiTest.Start(database);
+        var board = await api.CreateBoardAsync();
+
+        using var content = new StringContent("""{"rev":"a"}""", System.Text.Encoding.UTF8, "application/json");
+        using var response = await api.Client.PostAsync($"/api/boards/{board.Id}/designs", content, ApiTest.Token);
+
+        var problem = await ApiTest.ReadProblemAsync(response, HttpStatusCode.UnprocessableEntity);
+        Assert.NotEqual(0, problem.GetProperty("errors").GetArrayLength());
     }
 
     [Fact]
@@ -107,6 +121,8 @@ public abstract class DesignsApiTests(ServerDatabase database)
         await ApiTest.ReadProblemAsync(latest, HttpStatusCode.NotFound);
         await ApiTest.ReadProblemAsync(list, HttpStatusCode.NotFound);
     }
+
+    private static string RevisedDesign { get; } = ApiTest.DemoDesign.Replace("\"title\": \"Wren\"", "\"title\": \"Wren rev b\"", StringComparison.Ordinal);
 
     public sealed class OnSqlite() : DesignsApiTests(ServerDatabase.Sqlite);
 

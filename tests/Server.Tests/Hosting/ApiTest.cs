@@ -5,6 +5,7 @@ using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.DependencyInjection;
 using Patchproof.Contracts.Benches;
 using Patchproof.Contracts.Boards;
+using Patchproof.Contracts.Captures;
 using Patchproof.Contracts.Designs;
 using Patchproof.Contracts.Fits;
 using Patchproof.Server.Data;
@@ -76,51 +77,40 @@ internal sealed class ApiTest : IAsyncDisposable
         return (await response.Content.ReadFromJsonAsync<BoardResponse>(Token))!;
     }
 
-    public async Task<DesignVersionSummary> CreateDesignAsync(Guid boardId, string document = """{"model":"lorenz","integrators":3}""")
+    /// <summary>The demo design of QH-L3, a valid document of the design schema.</summary>
+    public static string DemoDesign { get; } = File.ReadAllText(Path.Combine(Patchproof.TestSupport.ReferenceDataFiles.RepositoryRoot, "designs", "qh-l3-wren.json"));
+
+    public async Task<DesignVersionSummary> CreateDesignAsync(Guid boardId, string? document = null)
     {
+        document ??= DemoDesign;
         using var content = new StringContent(document, System.Text.Encoding.UTF8, "application/json");
         using var response = await Client.PostAsync($"/api/boards/{boardId}/designs", content, Token);
         Assert.Equal(HttpStatusCode.Created, response.StatusCode);
         return (await response.Content.ReadFromJsonAsync<DesignVersionSummary>(Token))!;
     }
 
-    /// <summary>Puts a capture straight into the store and the database, bypassing the upload (for tests of other resources).</summary>
-    public async Task<Guid> StoreCaptureDirectlyAsync(Guid boardId, string text = "t,x\n0,1\n0.001,2\n")
+    public async Task<HttpResponseMessage> UploadAsync(Guid boardId, byte[] bytes, string fileName = "capture.csv", string partType = "text/csv")
     {
-        var store = Service<CaptureStore>();
-        var bytes = System.Text.Encoding.UTF8.GetBytes(text);
-        var sha = Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(bytes));
-        var temp = store.NewTempPath(".csv");
-        await File.WriteAllBytesAsync(temp, bytes, Token);
-        store.Commit(temp, store.CsvPathOf(sha));
-        var id = Guid.NewGuid();
-        await WithDbAsync(async db =>
-        {
-            db.Captures.Add(new CaptureRecord
-            {
-                Id = id,
-                BoardId = boardId,
-                FileName = "direct.csv",
-                Sha256 = sha,
-                SizeBytes = bytes.Length,
-                RowCount = 2,
-                ChannelNamesJson = """["x"]""",
-                SampleIntervalSeconds = 0.001,
-                DurationSeconds = 0.001,
-                ChecksJson = "[]",
-                UploadedAtUnixMs = 0,
-            });
-            return await db.SaveChangesAsync(Token);
-        });
-        return id;
+        using var form = new MultipartFormDataContent();
+        var file = new ByteArrayContent(bytes);
+        file.Headers.ContentType = new System.Net.Http.Headers.MediaTypeHeaderValue(partType);
+        form.Add(file, "file", fileName);
+        return await Client.PostAsync($"/api/boards/{boardId}/captures", form, Token);
+    }
+
+    public async Task<CaptureResponse> UploadCaptureAsync(Guid boardId, byte[]? bytes = null)
+    {
+        using var response = await UploadAsync(boardId, bytes ?? CaptureFiles.TwoChannelScopeExport(2000));
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        return (await response.Content.ReadFromJsonAsync<CaptureResponse>(Token))!;
     }
 
     public async Task<(BoardResponse Board, DesignVersionSummary Design, Guid CaptureId)> CreateFittableBoardAsync(string code = "QH-L7")
     {
         var board = await CreateBoardAsync(code: code);
         var design = await CreateDesignAsync(board.Id);
-        var capture = await StoreCaptureDirectlyAsync(board.Id);
-        return (board, design, capture);
+        var capture = await UploadCaptureAsync(board.Id);
+        return (board, design, capture.Id);
     }
 
     public async Task<FitResponse> StartFitAsync(Guid boardId, int designVersion, params Guid[] captureIds)

@@ -20,7 +20,9 @@ internal sealed record TestServerSettings
 
     public bool SeedDemo { get; init; } = true;
 
-    public string? DemoFolder { get; init; }
+    public string? DemoDesignsFolder { get; init; }
+
+    public string? DemoCapturesFolder { get; init; }
 
     public long? MaxUploadBytes { get; init; }
 
@@ -54,7 +56,8 @@ internal sealed class TestServerHost : WebApplicationFactory<Program>
         builder.UseSetting("Patchproof:DataFolder", data.DataFolder);
         builder.UseSetting("ConnectionStrings:Postgres", data.PostgresConnectionString ?? string.Empty);
         builder.UseSetting("Patchproof:Demo:Seed", settings.SeedDemo ? "true" : "false");
-        builder.UseSetting("Patchproof:Demo:Folder", settings.DemoFolder ?? Path.Combine(data.DataFolder, "no-demo-files"));
+        builder.UseSetting("Patchproof:Demo:DesignsFolder", settings.DemoDesignsFolder ?? Path.Combine(data.DataFolder, "no-demo-files"));
+        builder.UseSetting("Patchproof:Demo:CapturesFolder", settings.DemoCapturesFolder ?? Path.Combine(data.DataFolder, "no-demo-files"));
         builder.UseSetting("Patchproof:Fits:Workers", settings.Workers.ToString(System.Globalization.CultureInfo.InvariantCulture));
         builder.UseSetting("Patchproof:Fits:HeartbeatInterval", "00:00:00.050");
         builder.UseSetting("Patchproof:Fits:PollInterval", "00:00:00.100");

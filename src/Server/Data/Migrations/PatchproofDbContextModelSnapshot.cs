@@ -59,7 +59,7 @@ namespace Patchproof.Server.Data.Migrations
                     b.Property<Guid>("Id")
                         .ValueGeneratedOnAdd();
                     b.Property<Guid>("BoardId");
-                    b.Property<string>("ChannelNamesJson")
+                    b.Property<string>("ChannelsJson")
                         .IsRequired();
                     b.Property<string>("ChecksJson")
                         .IsRequired();

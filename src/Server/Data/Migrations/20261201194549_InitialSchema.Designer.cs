@@ -11,7 +11,7 @@ using Patchproof.Server.Data;
 namespace Patchproof.Server.Data.Migrations
 {
     [DbContext(typeof(PatchproofDbContext))]
-    [Migration("20261201183634_InitialSchema")]
+    [Migration("20261201194549_InitialSchema")]
     partial class InitialSchema
     {
         /// <inheritdoc />
@@ -62,7 +62,7 @@ namespace Patchproof.Server.Data.Migrations
                     b.Property<Guid>("Id")
                         .ValueGeneratedOnAdd();
                     b.Property<Guid>("BoardId");
-                    b.Property<string>("ChannelNamesJson")
+                    b.Property<string>("ChannelsJson")
                         .IsRequired();
                     b.Property<string>("ChecksJson")
                         .IsRequired();

@@ -5,7 +5,8 @@ using Microsoft.EntityFrameworkCore.Migrations;
 
 namespace Patchproof.Server.Data.Migrations
 {
-    /// <inheritdoc />
+    /// <summary>The first schema: benches, boards, design versions, captures and fit jobs.</summary>
+    /// <remarks>Provider-neutral: no column types are named, so SQLite and PostgreSQL each map the CLR types themselves.</remarks>
     public partial class InitialSchema : Migration
     {
         /// <inheritdoc />
@@ -59,7 +60,7 @@ namespace Patchproof.Server.Data.Migrations
                     Sha256 = table.Column<string>(nullable: false),
                     SizeBytes = table.Column<long>(nullable: false),
                     RowCount = table.Column<long>(nullable: false),
-                    ChannelNamesJson = table.Column<string>(nullable: false),
+                    ChannelsJson = table.Column<string>(nullable: false),
                     SampleIntervalSeconds = table.Column<double>(nullable: true),
                     DurationSeconds = table.Column<double>(nullable: false),
                     ChecksJson = table.Column<string>(nullable: false),
