@@ -107,8 +107,8 @@ internal static class DesignSimulateVerb
 
         BuiltInTargets.TryFind(design.Model?.Name, out var target);
         var system = BoardOdeSystem.Create(design, faults.NonIdealities);
-        var interval = duration / (settings.Samples - 1);
-        var trace = BoardSimulator.Simulate(system, system.ParameterVector(deviations.ToImmutable()), system.InitialState(target), settle, duration, interval);
+        var interval = duration / settings.Samples;
+        var trace = BoardSimulator.Simulate(system, system.ParameterVector(deviations.ToImmutable()), system.InitialState(target), settle, interval * (settings.Samples - 1), interval);
         if (trace.Status is not (SolveStatus.Succeeded or SolveStatus.StoppedByEvent))
         {
             console.Error.WriteLine($"{path}: the board simulation stopped early: {trace.Message}");
@@ -195,12 +195,12 @@ internal static class DesignSimulateVerb
             high = Math.Max(high, value);
         }
 
-        // A scope set up by hand: a 1-2-5 volts-per-division over 8 divisions with 15 % margin, centred on a half volt.
+        // A scope set up by hand: a 1-2-2.5-5 volts-per-division over 8 divisions with 15 % margin, centred on a half volt.
         var center = Math.Round((low + high) / 2 * 2) / 2;
         var needed = Math.Max(2 * Math.Max(high - center, center - low) * 1.15 / 8, 0.01);
         var decade = Math.Pow(10, Math.Floor(Math.Log10(needed)));
-        var perDivision = new[] { 1.0, 2, 5, 10 }.Select(step => step * decade).First(step => step >= needed * (1 - 1e-12));
-        return (8 * perDivision, center);
+        var perDivision = new[] { 1.0, 2, 2.5, 5, 10 }.Select(step => step * decade).First(step => step >= needed * (1 - 1e-12));
+        return (8 * perDivision, center + 0.0);
     }
 
     private static double Gaussian(Random random)

@@ -22,8 +22,15 @@ public static class DesignFileWriter
             writer.WriteStartObject();
             writer.WriteString("format", DesignFile.FormatName);
             writer.WriteNumber("version", DesignFile.CurrentVersion);
-            writer.WriteString("board", design.Board);
-            writer.WriteString("title", design.Title);
+            if (design.Board.Length > 0)
+            {
+                writer.WriteString("board", design.Board);
+            }
+
+            if (design.Title.Length > 0)
+            {
+                writer.WriteString("title", design.Title);
+            }
             if (design.Description.Length > 0)
             {
                 writer.WriteString("description", design.Description);
