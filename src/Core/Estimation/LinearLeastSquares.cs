@@ -39,34 +39,55 @@ public static class LinearLeastSquares
         Preconditions.CheckArgumentRange(nameof(weights), weights is null || weights.Count == rows, "must have one entry per design row");
         for (var i = 0; i < rows; i++)
         {
-            Preconditions.CheckArgumentRange(nameof(response), double.IsFinite(response[i]), $"entry {i} is not a finite number");
-            Preconditions.CheckArgumentRange(nameof(weights), weights is null || (double.IsFinite(weights[i]) && weights[i] > 0), $"entry {i} must be positive and finite");
+            if (!double.IsFinite(response[i]))
+            {
+                Preconditions.CheckArgumentRange(nameof(response), false, $"entry {i} is not a finite number");
+            }
+
+            if (weights is not null && !(double.IsFinite(weights[i]) && weights[i] > 0))
+            {
+                Preconditions.CheckArgumentRange(nameof(weights), false, $"entry {i} must be positive and finite");
+            }
         }
 
-        var weighted = design.Clone();
-        var weightedResponse = response.Clone();
-        if (weights is not null)
+        // Column-major copy, rows scaled by sqrt(w), columns by a power of two near their norm.
+        var entries = design.ToColumnMajorArray();
+        var weightedResponse = response.ToArray();
+        var rootWeights = new double[rows];
+        for (var i = 0; i < rows; i++)
         {
-            for (var i = 0; i < rows; i++)
-            {
-                var root = Math.Sqrt(weights[i]);
-                weighted.SetRow(i, weighted.Row(i) * root);
-                weightedResponse[i] *= root;
-            }
+            rootWeights[i] = weights is null ? 1.0 : Math.Sqrt(weights[i]);
+            weightedResponse[i] *= rootWeights[i];
         }
 
         var columnScales = new double[columns];
         for (var j = 0; j < columns; j++)
         {
-            var norm = weighted.Column(j).L2Norm();
-            Preconditions.CheckArgumentRange(nameof(design), double.IsFinite(norm), $"column {j} holds a value that is not finite");
+            var column = entries.AsSpan(j * rows, rows);
+            var norm = 0.0;
+            for (var i = 0; i < rows; i++)
+            {
+                column[i] *= rootWeights[i];
+                norm += column[i] * column[i];
+            }
+
+            norm = Math.Sqrt(norm);
+            if (!double.IsFinite(norm))
+            {
+                Preconditions.CheckArgumentRange(nameof(design), false, $"column {j} holds a value that is not finite");
+            }
+
             // A power of two keeps the scaled matrix exact, so refinement below works on the very problem posed.
             columnScales[j] = norm > 0 ? Math.ScaleB(1.0, Math.ILogB(norm)) : 1.0;
-            weighted.SetColumn(j, weighted.Column(j) / columnScales[j]);
+            var inverseScale = 1.0 / columnScales[j];
+            for (var i = 0; i < rows; i++)
+            {
+                column[i] *= inverseScale;
+            }
         }
 
-        var qr = weighted.QR(QRMethod.Thin);
-        var upper = qr.R;
+        var qr = new HouseholderQr(entries, rows, columns);
+        var upper = Matrix<double>.Build.Dense(columns, columns, qr.UpperAt);
         var singularValues = upper.Svd(computeVectors: false).S;
         var largest = singularValues.Maximum();
         var smallest = singularValues.Minimum();
@@ -74,30 +95,48 @@ public static class LinearLeastSquares
         var rank = singularValues.Count(value => value > threshold);
         var conditionNumber = smallest > 0 ? largest / smallest : double.PositiveInfinity;
 
-        Vector<double> scaledCoefficients;
+        double[] scaledCoefficients;
         Matrix<double> scaledInverseNormal;
         LinearLeastSquaresStatus status;
         if (rank == columns)
         {
             var upperInverse = InvertUpperTriangular(upper);
-            scaledCoefficients = RefineOnAugmentedSystem(weighted, weightedResponse, qr.Q, upperInverse, upperInverse * qr.Q.TransposeThisAndMultiply(weightedResponse));
+            scaledCoefficients = RefineOnAugmentedSystem(entries, rows, columns, weightedResponse, qr, upperInverse);
             scaledInverseNormal = upperInverse.TransposeAndMultiply(upperInverse);
             status = LinearLeastSquaresStatus.FullRank;
         }
         else
         {
-            var pseudoInverse = PseudoInverse(weighted, threshold);
-            scaledCoefficients = pseudoInverse * weightedResponse;
+            var pseudoInverse = PseudoInverse(Matrix<double>.Build.Dense(rows, columns, entries), threshold);
+            scaledCoefficients = (pseudoInverse * Vector<double>.Build.Dense(weightedResponse)).ToArray();
             scaledInverseNormal = pseudoInverse.TransposeAndMultiply(pseudoInverse);
             status = LinearLeastSquaresStatus.RankDeficient;
         }
 
         var coefficients = Vector<double>.Build.Dense(columns, j => scaledCoefficients[j] / columnScales[j]);
-        var residuals = response - design * coefficients;
+        var residualSums = new double[rows];
+        var residualCompensations = new double[rows];
+        for (var i = 0; i < rows; i++)
+        {
+            residualSums[i] = weightedResponse[i];
+        }
+
+        for (var j = 0; j < columns; j++)
+        {
+            var column = entries.AsSpan(j * rows, rows);
+            for (var i = 0; i < rows; i++)
+            {
+                AddProduct(-column[i], scaledCoefficients[j], ref residualSums[i], ref residualCompensations[i]);
+            }
+        }
+
+        var residuals = Vector<double>.Build.Dense(rows);
         var weightedRss = 0.0;
         for (var i = 0; i < rows; i++)
         {
-            weightedRss += (weights?[i] ?? 1.0) * residuals[i] * residuals[i];
+            var weightedResidual = residualSums[i] + residualCompensations[i];
+            weightedRss += weightedResidual * weightedResidual;
+            residuals[i] = weightedResidual / rootWeights[i];
         }
 
         var degreesOfFreedom = rows - rank;
@@ -134,72 +173,88 @@ public static class LinearLeastSquares
     /// h = R^-T g, dx = R^-1 (Q' f - h), dr = f - A dx. This removes the kappa^2 * ||r|| error term that a plain QR
     /// solve leaves on large-residual problems (NIST Wampler4/5) and most of the rounding on ill-conditioned ones
     /// (Filip).</remarks>
-    private static Vector<double> RefineOnAugmentedSystem(Matrix<double> matrix, Vector<double> response, Matrix<double> q, Matrix<double> upperInverse, Vector<double> start)
+    private static double[] RefineOnAugmentedSystem(double[] entries, int rows, int columns, double[] response, HouseholderQr qr, Matrix<double> upperInverse)
     {
         const int Passes = 3;
-        var rows = matrix.RowCount;
-        var columns = matrix.ColumnCount;
-        var entries = matrix.ToRowMajorArray();
-        var x = start.ToArray();
+        var projected = (double[])response.Clone();
+        qr.ApplyTranspose(projected);
+        var x = (upperInverse * Vector<double>.Build.Dense(columns, j => projected[j])).ToArray();
         var r = new double[rows];
-        for (var i = 0; i < rows; i++)
-        {
-            r[i] = CompensatedRowResidual(entries, i, columns, response[i], 0.0, x);
-        }
-
-        var f = Vector<double>.Build.Dense(rows);
+        var f = new double[rows];
+        var compensation = new double[rows];
         var g = Vector<double>.Build.Dense(columns);
+        var dx = new double[columns];
+        Residual(entries, rows, columns, response, null, x, r, compensation);
         for (var pass = 0; pass < Passes; pass++)
         {
-            for (var i = 0; i < rows; i++)
-            {
-                f[i] = CompensatedRowResidual(entries, i, columns, response[i], r[i], x);
-            }
-
+            Residual(entries, rows, columns, response, r, x, f, compensation);
             for (var j = 0; j < columns; j++)
             {
-                double sum = 0, compensation = 0;
+                var column = entries.AsSpan(j * rows, rows);
+                double sum = 0, error = 0;
                 for (var i = 0; i < rows; i++)
                 {
-                    AddProduct(-entries[i * columns + j], r[i], ref sum, ref compensation);
+                    AddProduct(-column[i], r[i], ref sum, ref error);
                 }
 
-                g[j] = sum + compensation;
+                g[j] = sum + error;
             }
 
             var h = upperInverse.TransposeThisAndMultiply(g);
-            var dx = upperInverse * (q.TransposeThisAndMultiply(f) - h);
+            f.CopyTo(projected, 0);
+            qr.ApplyTranspose(projected);
+            var right = Vector<double>.Build.Dense(columns, j => projected[j] - h[j]);
+            var correction = upperInverse * right;
             for (var j = 0; j < columns; j++)
             {
+                dx[j] = correction[j];
                 x[j] += dx[j];
             }
 
             for (var i = 0; i < rows; i++)
             {
-                var dr = f[i];
-                for (var j = 0; j < columns; j++)
-                {
-                    dr -= entries[i * columns + j] * dx[j];
-                }
+                r[i] += f[i];
+            }
 
-                r[i] += dr;
+            for (var j = 0; j < columns; j++)
+            {
+                var column = entries.AsSpan(j * rows, rows);
+                for (var i = 0; i < rows; i++)
+                {
+                    r[i] -= column[i] * dx[j];
+                }
             }
         }
 
-        return Vector<double>.Build.Dense(x);
+        return x;
     }
 
-    /// <summary>b_i - r_i - sum_j a_ij x_j, accumulated with error-free transformations (Ogita, Rump and Oishi's Dot2).</summary>
-    private static double CompensatedRowResidual(double[] entries, int row, int columns, double response, double residual, double[] x)
+    /// <summary>destination_i = b_i - r_i - sum_j a_ij x_j, accumulated with error-free transformations (Ogita, Rump and Oishi's Dot2); r may be null (zero).</summary>
+    private static void Residual(double[] entries, int rows, int columns, double[] response, double[]? residual, double[] x, double[] destination, double[] compensation)
     {
-        double sum = response, compensation = 0;
-        AddProduct(-1.0, residual, ref sum, ref compensation);
-        for (var j = 0; j < columns; j++)
+        for (var i = 0; i < rows; i++)
         {
-            AddProduct(-entries[row * columns + j], x[j], ref sum, ref compensation);
+            destination[i] = response[i];
+            compensation[i] = 0;
+            if (residual is not null)
+            {
+                AddProduct(-1.0, residual[i], ref destination[i], ref compensation[i]);
+            }
         }
 
-        return sum + compensation;
+        for (var j = 0; j < columns; j++)
+        {
+            var column = entries.AsSpan(j * rows, rows);
+            for (var i = 0; i < rows; i++)
+            {
+                AddProduct(-column[i], x[j], ref destination[i], ref compensation[i]);
+            }
+        }
+
+        for (var i = 0; i < rows; i++)
+        {
+            destination[i] += compensation[i];
+        }
     }
 
     private static void AddProduct(double a, double b, ref double sum, ref double compensation)

@@ -1,7 +1,5 @@
 using SimdVector = System.Numerics.Vector;
 using SimdVectorOfDouble = System.Numerics.Vector<double>;
-using MathNet.Numerics.LinearAlgebra;
-using MathNet.Numerics.LinearAlgebra.Factorization;
 
 namespace Patchproof.Core.Estimation;
 
@@ -193,30 +191,44 @@ public sealed class SavitzkyGolayFilter
     private static double[] BuildTable(int halfWidth, int order, int derivative, int firstOffset, int lastOffset)
     {
         var width = 2 * halfWidth + 1;
-        var design = Matrix<double>.Build.Dense(width, order + 1, (i, j) => Math.Pow((i - halfWidth) / (double)halfWidth, j));
-        var qr = design.QR(QRMethod.Thin);
-        var pseudoInverse = LinearLeastSquares.InvertUpperTriangular(qr.R).TransposeAndMultiply(qr.Q);
+        var columns = order + 1;
+        var design = new double[width * columns];
+        for (var j = 0; j < columns; j++)
+        {
+            for (var i = 0; i < width; i++)
+            {
+                design[j * width + i] = Math.Pow((i - halfWidth) / (double)halfWidth, j);
+            }
+        }
+
+        // c = Q R^-T v for the evaluation vector v (the d-th derivative of the monomials at the offset), so c'y = v' R^-1 Q'y.
+        var qr = new HouseholderQr(design, width, columns);
         var rows = lastOffset - firstOffset + 1;
         var result = new double[rows * width];
-        var evaluation = new double[order + 1];
+        var solved = new double[columns];
+        var perSample = Math.Pow(halfWidth, -derivative);
         for (var row = 0; row < rows; row++)
         {
             var u = (firstOffset + row) / (double)halfWidth;
-            for (var j = 0; j <= order; j++)
+            for (var j = 0; j < columns; j++)
             {
-                evaluation[j] = j < derivative ? 0.0 : FallingFactorial(j, derivative) * Math.Pow(u, j - derivative);
-            }
-
-            var perSample = Math.Pow(halfWidth, -derivative);
-            for (var i = 0; i < width; i++)
-            {
-                var sum = 0.0;
-                for (var j = derivative; j <= order; j++)
+                var evaluation = j < derivative ? 0.0 : FallingFactorial(j, derivative) * Math.Pow(u, j - derivative);
+                var sum = evaluation;
+                for (var k = 0; k < j; k++)
                 {
-                    sum += evaluation[j] * pseudoInverse[j, i];
+                    sum -= qr.UpperAt(k, j) * solved[k];
                 }
 
-                result[row * width + i] = sum * perSample;
+                solved[j] = sum / qr.UpperAt(j, j);
+            }
+
+            var coefficients = result.AsSpan(row * width, width);
+            coefficients.Clear();
+            solved.CopyTo(coefficients);
+            qr.Apply(coefficients);
+            for (var i = 0; i < width; i++)
+            {
+                coefficients[i] *= perSample;
             }
         }
 

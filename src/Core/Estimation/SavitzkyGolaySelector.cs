@@ -1,6 +1,3 @@
-using System.Numerics;
-using MathNet.Numerics.IntegralTransforms;
-
 namespace Patchproof.Core.Estimation;
 
 /// <summary>Options of the automatic Savitzky-Golay choice.</summary>
@@ -35,7 +32,7 @@ public sealed record SavitzkyGolaySelectionOptions
 /// through the filter + bias from the neglected Taylor term": it uses the whole signal spectrum instead of one
 /// higher-derivative estimate, so it stays right when the window spans a good part of a period, where the leading
 /// Taylor term no longer dominates.</para>
-/// <para>Estimates. The record is detrended, Hann-windowed and transformed; the periodogram P_k has expectation
+/// <para>Estimates. The record is detrended, Hann-windowed, zero-padded to a power of two and transformed; the periodogram P_k has expectation
 /// sigma^2 sum w^2 on noise-only bins. sigma is the caller's (noise floor and quantization step / sqrt(12) from the
 /// capture checks) or, when not given, median(P_k over the upper half of the band) / ln 2 / sum w^2 (the median of an
 /// exponential variable is ln 2 times its mean). The signal spectrum is (P_k - noise)+ up to the last bin above
@@ -68,7 +65,8 @@ public static class SavitzkyGolaySelector
         Preconditions.CheckArgumentRange(nameof(options), options.MinHalfWidth >= 1 && options.MaxHalfWidth >= options.MinHalfWidth && options.MaxPolynomialOrder >= Math.Max(options.MinPolynomialOrder, derivativeOrder), "needs a non-empty range of half-widths and orders");
 
         var spectrum = Periodogram(samples, out var windowEnergy);
-        var half = n / 2;
+        var padded = 2 * (spectrum.Length - 1);
+        var half = padded / 2;
         var sigma = double.IsNaN(noiseStandardDeviation) ? EstimateNoise(spectrum, half, windowEnergy) : noiseStandardDeviation;
         var noiseLevel = sigma * sigma * windowEnergy;
         var cutoff = 0;
@@ -84,11 +82,11 @@ public static class SavitzkyGolaySelector
         var bandCount = Math.Max(1, Math.Min(MaxBands, cutoff));
         var bandPower = new double[bandCount];
         var bandOmega = new double[bandCount];
-        var omegaStep = 2 * Math.PI / (n * sampleInterval);
+        var omegaStep = 2 * Math.PI / (padded * sampleInterval);
         for (var k = 1; k <= cutoff; k++)
         {
             var band = (int)((long)(k - 1) * bandCount / cutoff);
-            var power = Math.Max(0, spectrum[k] - noiseLevel) * (k == half && n % 2 == 0 ? 1 : 2) / (n * windowEnergy);
+            var power = Math.Max(0, spectrum[k] - noiseLevel) * (k == half ? 1 : 2) / (padded * windowEnergy);
             bandPower[band] += power;
             bandOmega[band] += power * (k * omegaStep) * (k * omegaStep);
         }
@@ -165,7 +163,7 @@ public static class SavitzkyGolaySelector
     {
         Preconditions.CheckArgumentRange(nameof(samples), samples.Length >= 64, "needs at least 64 samples");
         var spectrum = Periodogram(samples, out var windowEnergy);
-        return EstimateNoise(spectrum, samples.Length / 2, windowEnergy);
+        return EstimateNoise(spectrum, spectrum.Length - 1, windowEnergy);
     }
 
     private static double EstimateNoise(double[] spectrum, int half, double windowEnergy)
@@ -183,7 +181,11 @@ public static class SavitzkyGolaySelector
         double meanIndex = (n - 1) / 2.0, mean = 0, slope = 0, spread = 0;
         for (var i = 0; i < n; i++)
         {
-            Preconditions.CheckArgumentRange(nameof(samples), double.IsFinite(samples[i]), $"sample {i} is not a finite number");
+            if (!double.IsFinite(samples[i]))
+            {
+                Preconditions.CheckArgumentRange(nameof(samples), false, $"sample {i} is not a finite number");
+            }
+
             mean += samples[i];
         }
 
@@ -195,20 +197,23 @@ public static class SavitzkyGolaySelector
         }
 
         slope /= spread;
-        var buffer = new Complex[n];
+        // Zero-padded to a power of two: bin k then sits at k / (N h) with N the padded length.
+        var length = (int)System.Numerics.BitOperations.RoundUpToPowerOf2((uint)n);
+        var real = new double[length];
+        var imaginary = new double[length];
         windowEnergy = 0;
         for (var i = 0; i < n; i++)
         {
             var w = 0.5 * (1 - Math.Cos(2 * Math.PI * i / (n - 1)));
             windowEnergy += w * w;
-            buffer[i] = new Complex(w * (samples[i] - mean - slope * (i - meanIndex)), 0);
+            real[i] = w * (samples[i] - mean - slope * (i - meanIndex));
         }
 
-        Fourier.Forward(buffer, FourierOptions.NoScaling);
-        var spectrum = new double[n / 2 + 1];
+        RadixTwoFourier.Forward(real, imaginary);
+        var spectrum = new double[length / 2 + 1];
         for (var k = 0; k < spectrum.Length; k++)
         {
-            spectrum[k] = buffer[k].Real * buffer[k].Real + buffer[k].Imaginary * buffer[k].Imaginary;
+            spectrum[k] = real[k] * real[k] + imaginary[k] * imaginary[k];
         }
 
         return spectrum;
