@@ -70,7 +70,18 @@ public static class MultipleShootingEstimator
         var curvature = new double[problem.ParameterCount];
         problem.TryLinearize(solution, gradient, curvature);
         var residuals = problem.ObservationResiduals(solution);
-        var observations = residuals.Sum(r => r.Length);
+        for (var c = 0; c < channels.Count; c++)
+        {
+            if (channels[c].Excluded is { } excluded)
+            {
+                for (var i = 0; i < residuals[c].Length; i++)
+                {
+                    residuals[c][i] = excluded[i] ? double.NaN : residuals[c][i];
+                }
+            }
+        }
+
+        var observations = residuals.Sum(r => r.Count(double.IsFinite));
         var degreesOfFreedom = Math.Max(1, observations - problem.ParameterCount);
         var residualVariance = residuals.Sum(r => r.Where(double.IsFinite).Sum(v => v * v)) / degreesOfFreedom;
         var correlation = LagOneAutocorrelation(residuals);

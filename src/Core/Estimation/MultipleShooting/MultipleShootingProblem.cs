@@ -28,6 +28,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
     private readonly int[] gainChannels;
     private readonly double continuityWeight;
     private readonly double[][] huberWeights;
+    private readonly double[][] excludedWeights;
 
     private Matrix<double>[] diagonalBlocks = [];
     private Matrix<double>[] upperBlocks = [];
@@ -66,7 +67,8 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
             .Select(k => Enumerable.Range(boundaries[k], boundaries[k + 1] - boundaries[k] + 1).Select(TimeOf).ToImmutableArray())
             .ToArray();
         continuityWeight = options.ContinuityWeightFactor / channels.Min(channel => channel.NoiseSdVolts);
-        huberWeights = channels.Select(_ => Enumerable.Repeat(1.0, sampleCount).ToArray()).ToArray();
+        excludedWeights = channels.Select(channel => channel.Excluded is { } excluded ? excluded.Select(x => x ? 0.0 : 1.0).ToArray() : Enumerable.Repeat(1.0, sampleCount).ToArray()).ToArray();
+        huberWeights = excludedWeights.Select(weights => (double[])weights.Clone()).ToArray();
     }
 
     public int SegmentCount => boundaries.Length - 1;
@@ -553,7 +555,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
             for (var i = 0; i < residuals[c].Length; i++)
             {
                 var size = Math.Abs(residuals[c][i]);
-                huberWeights[c][i] = size <= threshold ? 1 : threshold / size;
+                huberWeights[c][i] = excludedWeights[c][i] * (size <= threshold || !double.IsFinite(size) ? 1 : threshold / size);
             }
         }
     }

@@ -10,4 +10,7 @@ public sealed record ShootingChannel(string Name, int StateIndex, double Nominal
 {
     /// <summary>When set, the channel's gain is fitted with a Gaussian prior of this relative sd around <see cref="NominalGain"/>; when null it stays at the nominal gain.</summary>
     public double? GainPriorRelativeSd { get; init; }
+
+    /// <summary>Samples to leave out of the fit (clipped stretches), or null to use all; same length as <see cref="Samples"/>.</summary>
+    public IReadOnlyList<bool>? Excluded { get; init; }
 }

@@ -1,0 +1,223 @@
+using System.Diagnostics;
+using Patchproof.Core.Captures;
+using Patchproof.Core.Captures.Checks;
+using Patchproof.Core.Circuits;
+using Patchproof.Core.Diagnosis;
+using Patchproof.Core.Estimation.MultipleShooting;
+
+namespace Patchproof.Core.Reports;
+
+/// <summary>Fits a board design to a capture and says which part drifted: the whole path from samples to findings.</summary>
+/// <remarks>
+/// <para>Steps: capture checks; the channel mapping; the design's terms as a polynomial vector field in volts and
+/// seconds; noise per channel from second differences (floored by the quantization step / √12); clipped stretches
+/// masked; hidden variables started by inverting an observed equation (Pecora-Carroll synchronization as the
+/// fallback) and their amplitude pinned by part-tolerance priors; multiple shooting from the nominal coefficients;
+/// then the part diagnosis on the fitted coefficients and offsets.</para>
+/// <para>Findings are marked unsafe (the report's warnings) when the capture clipped, the record is too short, the fit
+/// did not converge, or no explanation fits.</para>
+/// </remarks>
+public static class BoardFitter
+{
+    /// <summary>Fits <paramref name="design"/> to <paramref name="capture"/>.</summary>
+    /// <param name="design">The board as drawn.</param>
+    /// <param name="capture">The recording.</param>
+    /// <param name="options">Mapping, probe gains, segment length.</param>
+    /// <param name="clock">Stamps the report.</param>
+    /// <returns>The report, or the errors that make the inputs unusable together (an unknown channel or variable, a non-uniform time base, an unsupported block).</returns>
+    public static ParseResult<FitReport> Fit(BoardDesign design, Capture capture, BoardFitOptions options, TimeProvider clock)
+    {
+        var stopwatch = Stopwatch.StartNew();
+        if (capture.TimeBase is not UniformTimeBase timeBase)
+        {
+            return Error("capture", "the capture's time base is not uniform; the fit needs evenly spaced samples");
+        }
+
+        var terms = design.Terms();
+        if (terms.Any(term => term.Basis.Function is not null))
+        {
+            return Error("design", "the design has a function block (piecewise-linear); fitting such boards is not supported yet");
+        }
+
+        var variables = design.Variables.Select(v => v.Name).ToList();
+        var mapping = options.Mapping.Count > 0
+            ? options.Mapping
+            : capture.Channels.Take(variables.Count).Select((channel, i) => new ChannelAssignment(channel.Name, variables[i], 1)).ToList();
+        var channelIndex = new List<(ChannelAssignment Assignment, CaptureChannel Channel, int State)>();
+        foreach (var assignment in mapping)
+        {
+            var channel = capture.FindChannel(assignment.Channel);
+            if (channel is null)
+            {
+                return Error("--map", $"the capture has no channel '{assignment.Channel}' (it has {string.Join(", ", capture.Channels.Select(c => c.Name))})");
+            }
+
+            var state = variables.IndexOf(assignment.Variable);
+            if (state < 0)
+            {
+                return Error("--map", $"the design has no variable '{assignment.Variable}' (it has {string.Join(", ", variables)})");
+            }
+
+            channelIndex.Add((assignment, channel, state));
+        }
+
+        if (channelIndex.Select(c => c.State).Distinct().Count() != channelIndex.Count)
+        {
+            return Error("--map", "two channels are mapped to one variable");
+        }
+
+        var checks = CaptureInspection.Run(capture);
+        var warnings = new List<string>();
+        var clipped = checks.Where(check => check.Id == "clipping").ToList();
+        foreach (var check in clipped)
+        {
+            warnings.Add($"{check.Channel} clipped: the fit left out the clipped stretches, but the findings rest on less data and may be biased. Record again with a wider vertical range.");
+        }
+
+        var problemUnits = timeBase.DurationSeconds / design.TimeScaleSeconds;
+        if (problemUnits < options.MinimumProblemUnits)
+        {
+            warnings.Add($"The record spans only {problemUnits:0.#} problem time units; at least {options.MinimumProblemUnits:0} are needed to identify the system. Record longer.");
+        }
+
+        var hasConstant = variables.Select(v => terms.Any(t => t.Variable == v && t.Basis.IsConstant)).ToList();
+        var field = new PolynomialVectorField(
+            variables,
+            terms.Select(t => new PolynomialTerm(variables.IndexOf(t.Variable), t.Basis.Variables.Select(v => variables.IndexOf(v)).ToList(), t.Basis.ToString())).ToList(),
+            hasConstant.Select(has => !has).ToList());
+        var nominal = terms.Select(t => t.NominalCoefficient).Concat(field.OffsetEquations.Select(_ => 0.0)).ToArray();
+
+        var shootingChannels = channelIndex.Select(entry =>
+        {
+            var samples = entry.Channel.Samples.Span.ToArray().Select(v => (double)v).ToArray();
+            var clipLevels = clipped.Where(check => check.Channel == entry.Channel.Name).Select(check => check.Values["levelVolts"]).ToList();
+            var excluded = samples.Select(v => clipLevels.Any(level => Math.Abs(v - level) <= 1e-6 * Math.Max(1, Math.Abs(level)))).ToArray();
+            var gainSd = options.CalibratedGainSd.TryGetValue(entry.Channel.Name, out var calibrated) ? calibrated : Math.Log(1 + options.ProbeGainTolerance) / 2;
+            return new ShootingChannel(entry.Channel.Name, entry.State, entry.Assignment.Sign, NoiseSd(samples), samples)
+            {
+                Excluded = excluded.Any(x => x) ? excluded : null,
+            };
+        }).ToList();
+
+        var observed = shootingChannels.ToDictionary(c => c.StateIndex, c => (IReadOnlyList<double>)c.Samples.Select(v => v / c.NominalGain).ToArray());
+        var hidden = Enumerable.Range(0, variables.Count).Where(j => !observed.ContainsKey(j)).ToList();
+        IReadOnlyList<double[]>? guess = null;
+        var hiddenNotes = new List<string>();
+        var priors = new List<ParameterPrior>();
+        if (hidden.Count > 0)
+        {
+            guess = HiddenStateInversion.TryRecover(field, nominal, observed, timeBase.IntervalSeconds);
+            var how = "inverted from an observed equation";
+            if (guess is null)
+            {
+                var sync = PecoraCarrollSynchronizer.Synchronize(field, nominal, observed, timeBase.IntervalSeconds, design.MachineUnitVolts * 0.1);
+                guess = sync.States;
+                how = sync.Synchronizes ? "synchronized to the observed channels" : "synchronized to the observed channels, which did not converge";
+                if (!sync.Synchronizes)
+                {
+                    warnings.Add("The hidden variables could not be synchronized to the recorded channels; record another channel.");
+                }
+            }
+
+            hiddenNotes.AddRange(hidden.Select(j => $"{variables[j]} ({how})"));
+            for (var t = 0; t < terms.Length; t++)
+            {
+                var tolerance = Math.Sqrt(terms[t].PartIds.Sum(id => Math.Pow(Math.Log(1 + (design.FindPart(id)?.Tolerance ?? 0.01)) / 3, 2)));
+                priors.Add(new ParameterPrior(t, nominal[t], Math.Max(tolerance, 1e-3) * Math.Abs(nominal[t])));
+            }
+        }
+
+        var segmentSeconds = options.SegmentProblemUnits * design.TimeScaleSeconds;
+        var fit = MultipleShootingEstimator.Fit(field, nominal, shootingChannels, 0, timeBase.IntervalSeconds,
+            new MultipleShootingOptions { SegmentSeconds = segmentSeconds, ParameterPriors = priors }, guess);
+        if (!fit.Converged)
+        {
+            warnings.Add($"The fit stopped before converging ({fit.ExitReason}); treat its numbers as rough.");
+        }
+
+        var channelOfVariable = channelIndex.ToDictionary(c => c.Assignment.Variable, c => c.Channel.Name);
+        var gainSds = channelIndex.ToDictionary(c => c.Channel.Name, c => options.CalibratedGainSd.TryGetValue(c.Channel.Name, out var sd) ? sd : Math.Log(1 + options.ProbeGainTolerance) / 2);
+        var diagnosisProblem = DesignDiagnosisBuilder.Build(design, terms, field, fit, channelOfVariable, gainSds);
+        var diagnosis = PartDiagnoser.Diagnose(diagnosisProblem);
+        if (diagnosis.Outcome is DiagnosisOutcome.NoExplanationFits)
+        {
+            warnings.Add("No explanation by one or two drifted parts fits: suspect a wiring fault or a bad capture.");
+        }
+
+        var report = new FitReport(
+            design.Board,
+            design.Title,
+            CoreAssembly.Version,
+            clock.GetUtcNow(),
+            new CaptureSummary(capture.SampleCount, timeBase.IntervalSeconds, timeBase.DurationSeconds, problemUnits, capture.Channels.Select(c => c.Name).ToList()),
+            mapping,
+            checks,
+            diagnosis,
+            Coefficients(design, terms, fit, observed.Keys.Select(j => variables[j]).ToHashSet()),
+            Offsets(design, field, fit, variables),
+            channelIndex.Select((entry, c) => new ChannelCorrection(entry.Channel.Name, entry.Assignment.Variable, entry.Assignment.Sign,
+                fit.ChannelOffsetsVolts[c], fit.ChannelOffsetStandardErrors[c], fit.ChannelGains[c], fit.ChannelGainStandardErrors[c],
+                options.CalibratedGainSd.ContainsKey(entry.Channel.Name) ? "calibration" : $"probe tolerance {options.ProbeGainTolerance * 100:0.#} % (in the diagnosis)",
+                fit.ResidualRmsVolts[c])).ToList(),
+            TimeConstants(design, diagnosis),
+            new FitQuality("multiple shooting", fit.SegmentStates.Count, segmentSeconds, fit.Iterations, fit.ExitReason.ToString(), fit.Converged, fit.VarianceInflation, hiddenNotes, stopwatch.Elapsed.TotalSeconds),
+            warnings);
+        return ParseResult<FitReport>.ForValue(report);
+    }
+
+    private static List<CoefficientEstimate> Coefficients(BoardDesign design, IReadOnlyList<DesignTerm> terms, MultipleShootingResult fit, HashSet<string> observed) =>
+        terms.Select((term, t) => new CoefficientEstimate(
+            term.Variable,
+            term.Basis.ToString(),
+            term.CoefficientUnit,
+            term.NominalCoefficient,
+            fit.Parameters[t],
+            fit.StandardErrors[t],
+            100 * (fit.Parameters[t] / term.NominalCoefficient - 1),
+            design.ToProblemCoefficient(term),
+            design.ToProblemCoefficient(term, fit.Parameters[t]),
+            !observed.Contains(term.Variable) || !term.Basis.Variables.All(observed.Contains))).ToList();
+
+    private static List<OffsetEstimate> Offsets(BoardDesign design, PolynomialVectorField field, MultipleShootingResult fit, IReadOnlyList<string> variables) =>
+        field.OffsetEquations.Select((equation, k) =>
+        {
+            var integrator = design.Integrators.First(i => i.Variable == variables[equation]);
+            var capacitance = design.NominalOf(integrator.CapacitorId);
+            var conductance = integrator.Inputs.Sum(input => 1 / (design.NominalOf(input.ResistorId) * capacitance));
+            var value = fit.Parameters[field.TermCount + k];
+            return new OffsetEstimate(variables[equation], value, fit.StandardErrors[field.TermCount + k], 1000 * value / conductance);
+        }).ToList();
+
+    private static List<TimeConstantEstimate> TimeConstants(BoardDesign design, DiagnosisResult diagnosis) =>
+        design.Integrators.Select(integrator =>
+        {
+            var posterior = diagnosis.Winner.Posterior.FirstOrDefault(p => p.ColumnId == integrator.CapacitorId);
+            return new TimeConstantEstimate(integrator.Variable, integrator.CapacitorId, design.TimeScaleSeconds, design.TimeScaleSeconds * Math.Exp(posterior?.Mean ?? 0));
+        }).ToList();
+
+    /// <summary>Noise sd from the median absolute second difference (smooth signals cancel in it), floored by the quantization step / √12.</summary>
+    private static double NoiseSd(double[] samples)
+    {
+        var differences = new double[Math.Max(1, samples.Length - 2)];
+        for (var i = 1; i + 1 < samples.Length; i++)
+        {
+            differences[i - 1] = Math.Abs(samples[i + 1] - 2 * samples[i] + samples[i - 1]);
+        }
+
+        Array.Sort(differences);
+        var fromDifferences = differences[differences.Length / 2] / (0.6745 * Math.Sqrt(6));
+        var distinct = samples.Distinct().OrderBy(v => v).ToArray();
+        var step = double.PositiveInfinity;
+        for (var i = 1; i < distinct.Length; i++)
+        {
+            step = Math.Min(step, distinct[i] - distinct[i - 1]);
+        }
+
+        var quantization = double.IsFinite(step) ? step / Math.Sqrt(12) : 0;
+        var noise = Math.Max(fromDifferences, quantization);
+        return noise > 0 ? noise : 1e-6;
+    }
+
+    private static ParseResult<FitReport> Error(string field, string message) =>
+        ParseResult<FitReport>.ForError(SourceDiagnostic.ErrorAt(field, 0, 0, message));
+}

@@ -1,0 +1,57 @@
+using System.Collections.Immutable;
+using Patchproof.Core.Captures;
+using Patchproof.Core.Circuits;
+using Patchproof.Core.Circuits.Files;
+using Patchproof.Core.Estimation.MultipleShooting;
+using Patchproof.Core.Simulation;
+using Patchproof.TestSupport;
+
+namespace Patchproof.Core.Tests.Reports;
+
+/// <summary>A capture of a board whose parts may deviate from its design: simulated in volts and seconds from the
+/// design's own term algebra, with noise of 0.5 % of each channel's SD and 8-bit quantization over a scope window.</summary>
+internal static class SyntheticBoardCapture
+{
+    public static BoardDesign LoadDesign(string file) =>
+        DesignFileReader.ReadFile(Path.Combine(ReferenceDataFiles.RepositoryRoot, "designs", file)).Value;
+
+    public static Capture Simulate(BoardDesign asBuilt, int seed, double problemUnits = 20, double[]? channelOffsetsVolts = null, int[]? recorded = null)
+    {
+        var variables = asBuilt.Variables.Select(v => v.Name).ToList();
+        var terms = asBuilt.Terms();
+        var field = new PolynomialVectorField(
+            variables,
+            terms.Select(t => new PolynomialTerm(variables.IndexOf(t.Variable), t.Basis.Variables.Select(v => variables.IndexOf(v)).ToList(), t.Basis.ToString())).ToList(),
+            variables.Select(_ => false).ToList());
+        var parameters = terms.Select(t => t.NominalCoefficient).ToImmutableArray();
+        var tau = asBuilt.TimeScaleSeconds;
+        var start = asBuilt.Variables.Select(v => v.ToVolts(1.0)).ToImmutableArray();
+        var transient = OdeSolver.Solve(new OdeProblem(field, start, 0, 10 * tau, parameters), new DormandPrince45 { RelativeTolerance = 1e-10, AbsoluteTolerance = 1e-10 });
+        var dt = tau / 500;
+        var count = (int)Math.Round(problemUnits * 500) + 1;
+        var times = Enumerable.Range(0, count).Select(i => 10 * tau + i * dt).ToImmutableArray();
+        var run = OdeSolver.Solve(new OdeProblem(field, [.. transient.FinalState.ToArray()], 10 * tau, times[^1], parameters),
+            new DormandPrince45 { RelativeTolerance = 1e-10, AbsoluteTolerance = 1e-10, SampleTimes = times });
+        var random = new Random(seed);
+        var channels = new List<CaptureChannel>();
+        foreach (var j in recorded ?? Enumerable.Range(0, variables.Count).ToArray())
+        {
+            var clean = Enumerable.Range(0, count).Select(i => run.StateAt(i)[j] + (channelOffsetsVolts?[j] ?? 0)).ToArray();
+            var mean = clean.Average();
+            var sd = Math.Sqrt(clean.Sum(v => (v - mean) * (v - mean)) / count);
+            var window = 1.1 * clean.Max(Math.Abs);
+            var step = 2 * window / 256;
+            var samples = clean.Select(v => (float)(Math.Round((v + 0.005 * sd * Gaussian(random)) / step) * step)).ToArray();
+            channels.Add(new CaptureChannel($"CH{j + 1}", "V", samples, "synthetic.csv", j + 2));
+        }
+
+        return new Capture(new UniformTimeBase(0, dt, count), channels, []);
+    }
+
+    private static double Gaussian(Random random)
+    {
+        var u1 = 1.0 - random.NextDouble();
+        var u2 = random.NextDouble();
+        return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
+    }
+}
