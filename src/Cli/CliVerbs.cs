@@ -11,5 +11,6 @@ internal static class CliVerbs
         yield return Verbs.DesignVerb.Create(console);
         yield return Verbs.InspectVerb.Create(console);
         yield return Verbs.SimulateVerb.Create(console);
+        yield return Verbs.FitVerb.Create(console);
     }
 }

@@ -31,7 +31,8 @@ public static class DesignDiagnosisBuilder
     /// <param name="field">The fitted vector field.</param>
     /// <param name="fit">The multiple-shooting result.</param>
     /// <param name="channelOfVariable">The channel name recording each variable; hidden variables are absent.</param>
-    /// <param name="gainSdOfChannel">The log-gain prior sd of each channel (about 0.01 uncalibrated, 0.001-0.003 calibrated).</param>
+    /// <param name="gainSdOfChannel">The log-gain prior sd of each channel (about 0.01 uncalibrated, 0.001-0.003 calibrated);
+    /// null when the fit estimated the gains itself, so that their uncertainty is already in its covariance.</param>
     /// <returns>The rows, columns and covariance.</returns>
     public static DiagnosisProblem Build(
         BoardDesign design,
@@ -39,7 +40,7 @@ public static class DesignDiagnosisBuilder
         PolynomialVectorField field,
         MultipleShootingResult fit,
         IReadOnlyDictionary<string, string> channelOfVariable,
-        IReadOnlyDictionary<string, double> gainSdOfChannel)
+        IReadOnlyDictionary<string, double>? gainSdOfChannel)
     {
         var variables = design.Variables.Select(v => v.Name).ToList();
         bool Observed(string variable) => channelOfVariable.ContainsKey(variable);
@@ -122,7 +123,7 @@ public static class DesignDiagnosisBuilder
             columns.Add(DiagnosisColumn.ForPartOffset($"{integrator.Variable}-integrator.offset", $"input offset of the {integrator.Variable} integrator's op-amp", OpAmpOffsetToleranceVolts, entries));
         }
 
-        foreach (var (variable, channel) in channelOfVariable)
+        foreach (var (variable, channel) in gainSdOfChannel is null ? new Dictionary<string, string>() : channelOfVariable)
         {
             var entries = rowSources.Select(source =>
             {
@@ -134,7 +135,7 @@ public static class DesignDiagnosisBuilder
                 var term = terms[source.Parameter];
                 return (term.Variable == variable ? 1.0 : 0.0) - term.Basis.Variables.Count(v => v == variable);
             }).ToArray();
-            var sd = gainSdOfChannel.TryGetValue(channel, out var given) ? given : Math.Log(1.02) / 2;
+            var sd = gainSdOfChannel!.TryGetValue(channel, out var given) ? given : Math.Log(1.02) / 2;
             columns.Add(DiagnosisColumn.ForChannelGain(channel, Math.Exp(2 * sd) - 1, entries, sd));
         }
 

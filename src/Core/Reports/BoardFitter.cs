@@ -93,6 +93,7 @@ public static class BoardFitter
             var clipLevels = clipped.Where(check => check.Channel == entry.Channel.Name).Select(check => check.Values["levelVolts"]).ToList();
             var excluded = samples.Select(v => clipLevels.Any(level => Math.Abs(v - level) <= 1e-6 * Math.Max(1, Math.Abs(level)))).ToArray();
             var gainSd = options.CalibratedGainSd.TryGetValue(entry.Channel.Name, out var calibrated) ? calibrated : Math.Log(1 + options.ProbeGainTolerance) / 2;
+            // Gains stay at their nominal values in the fit; the diagnosis carries them as nuisance columns with their prior.
             return new ShootingChannel(entry.Channel.Name, entry.State, entry.Assignment.Sign, NoiseSd(samples), samples)
             {
                 Excluded = excluded.Any(x => x) ? excluded : null,
@@ -157,7 +158,7 @@ public static class BoardFitter
             Offsets(design, field, fit, variables),
             channelIndex.Select((entry, c) => new ChannelCorrection(entry.Channel.Name, entry.Assignment.Variable, entry.Assignment.Sign,
                 fit.ChannelOffsetsVolts[c], fit.ChannelOffsetStandardErrors[c], fit.ChannelGains[c], fit.ChannelGainStandardErrors[c],
-                options.CalibratedGainSd.ContainsKey(entry.Channel.Name) ? "calibration" : $"probe tolerance {options.ProbeGainTolerance * 100:0.#} % (in the diagnosis)",
+                options.CalibratedGainSd.ContainsKey(entry.Channel.Name) ? "calibration (in the diagnosis)" : $"probe tolerance {options.ProbeGainTolerance * 100:0.#} % (in the diagnosis)",
                 fit.ResidualRmsVolts[c])).ToList(),
             TimeConstants(design, diagnosis),
             new FitQuality("multiple shooting", fit.SegmentStates.Count, segmentSeconds, fit.Iterations, fit.ExitReason.ToString(), fit.Converged, fit.VarianceInflation, hiddenNotes, stopwatch.Elapsed.TotalSeconds),

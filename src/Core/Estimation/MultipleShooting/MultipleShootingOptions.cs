@@ -18,6 +18,12 @@ public sealed record MultipleShootingOptions
     /// <summary>How much more a continuity mismatch weighs than a sample misfit of the same size in volts. Default 100.</summary>
     public double ContinuityWeightFactor { get; init; } = 100;
 
+    /// <summary>Prior sd of each channel offset d_c in volts, or null for none. A channel offset on a state that enters a
+    /// product term trades exactly against that product's partner coefficient and the equation's offset (ESTIMATION.md
+    /// section 1), so without a prior the fit has a flat direction; probe offsets of about 10 mV (common practice) make
+    /// 0.02 V a fair prior when the flat direction must be pinned. Default none: the fit then follows the data along that direction and its covariance says so.</summary>
+    public double? ChannelOffsetPriorSdVolts { get; init; }
+
     /// <summary>Whether each channel gets a fitted offset d_c. Default true.</summary>
     public bool EstimateChannelOffsets { get; init; } = true;
 

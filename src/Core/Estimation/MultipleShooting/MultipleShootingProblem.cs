@@ -506,6 +506,15 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
     private double GainPriorCost(double[] unknowns)
     {
         var cost = 0.0;
+        if (offsetCount > 0 && options.ChannelOffsetPriorSdVolts is { } offsetSd)
+        {
+            for (var c = 0; c < offsetCount; c++)
+            {
+                var r = OffsetOf(unknowns, c) / offsetSd;
+                cost += r * r;
+            }
+        }
+
         foreach (var prior in options.ParameterPriors)
         {
             var r = (unknowns[SegmentCount * n + prior.Index] - prior.Mean) / prior.Sd;
@@ -524,6 +533,16 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
 
     private void AddGainPriors(double[] unknowns)
     {
+        if (offsetCount > 0 && options.ChannelOffsetPriorSdVolts is { } offsetSd)
+        {
+            for (var c = 0; c < offsetCount; c++)
+            {
+                var index = fieldParameters + c;
+                globalBlock[index, index] += 1 / (offsetSd * offsetSd);
+                globalGradient[index] += OffsetOf(unknowns, c) / (offsetSd * offsetSd);
+            }
+        }
+
         foreach (var prior in options.ParameterPriors)
         {
             var residual = (unknowns[SegmentCount * n + prior.Index] - prior.Mean) / prior.Sd;

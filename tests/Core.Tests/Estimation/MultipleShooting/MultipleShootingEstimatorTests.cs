@@ -34,7 +34,7 @@ public sealed class MultipleShootingEstimatorTests
         var shootingChannels = channels.Select((samples, j) => new ShootingChannel($"CH{j + 1}", j, 1, noise[j], samples)).ToList();
         var field = SyntheticLorenzCapture.Field(offsets: false);
 
-        var result = MultipleShootingEstimator.Fit(field, SyntheticLorenzCapture.NominalTerms, shootingChannels, 0, SyntheticLorenzCapture.Interval, new MultipleShootingOptions { SegmentSeconds = 0.5 });
+        var result = MultipleShootingEstimator.Fit(field, SyntheticLorenzCapture.NominalTerms, shootingChannels, 0, SyntheticLorenzCapture.Interval, new MultipleShootingOptions { SegmentSeconds = 0.5, ChannelOffsetPriorSdVolts = null });
 
         for (var j = 0; j < 3; j++)
         {
