@@ -169,7 +169,7 @@ public static class PartDiagnoser
         var lower = isValue ? column.NominalValue * Math.Exp(mean - k * sd) : mean - k * sd;
         var upper = isValue ? column.NominalValue * Math.Exp(mean + k * sd) : mean + k * sd;
         var deviation = isValue ? 100 * (Math.Exp(mean) - 1) : 1000 * mean;
-        var also = alternatives.Count == 0 ? "" : " This capture cannot tell it from " + string.Join(", ", alternatives.Select(a => $"{a.PartId} ({a.Deviation:+0.0;-0.0} %)")) + ".";
+        var also = alternatives.Count == 0 ? "" : " This capture cannot tell it from " + string.Join(", ", alternatives.Select(a => a.Kind is DiagnosisColumnKind.PartValue ? $"{a.PartId} ({a.Deviation:+0.0;-0.0} %)" : $"{a.PartId} ({a.Deviation:+0.0;-0.0} mV)")) + ".";
         var sentence = isValue
             ? string.Create(CultureInfo.InvariantCulture, $"{column.Id}, {EngineeringFormat.Format(column.NominalValue, column.Unit)} nominal, behaves like {EngineeringFormat.Format(effective, column.Unit)} ({deviation:+0.0;-0.0} %, interval {EngineeringFormat.Format(lower, column.Unit)} to {EngineeringFormat.Format(upper, column.Unit)}): {Describe(verdict)}.{also}")
             : string.Create(CultureInfo.InvariantCulture, $"{column.Id} shows an offset of {deviation:+0.0;-0.0} mV (± {1000 * k * sd:0.0} mV): {Describe(verdict)}.{also}");
