@@ -1,3 +1,4 @@
+using Patchproof.Core.Models.Library;
 using BenchmarkDotNet.Attributes;
 using Patchproof.Core.Simulation;
 
@@ -13,7 +14,7 @@ public class DormandPrince45Benchmarks
     // Reference state at t = 10 (tests/ReferenceData/ode-reference.json, 40-digit Taylor integration).
     private static readonly double[] ReferenceAtTen = [-4.9026875411346457319, -3.7438729218029196163, 24.690858102790555453];
 
-    private readonly OdeProblem problem = new(new BenchmarkLorenzSystem(), [1.0, 1.0, 1.0], 0.0, 1000.0, [10.0, 28.0, 8.0 / 3.0]);
+    private readonly OdeProblem problem = new(new LorenzSystem(), [1.0, 1.0, 1.0], 0.0, 1000.0, [10.0, 28.0, 8.0 / 3.0]);
 
     private readonly DormandPrince45 tight = new() { RelativeTolerance = 1e-9, AbsoluteTolerance = 1e-9, KeepSteps = false, MaxSteps = 10_000_000, MaxEvaluations = 100_000_000 };
 

@@ -1,3 +1,4 @@
+using Patchproof.Core.Models.Library;
 using BenchmarkDotNet.Attributes;
 using Patchproof.Core.Simulation;
 
@@ -12,7 +13,7 @@ public class ForwardSensitivitiesBenchmarks
     private const int SegmentCount = 40;
 
     // Sensitivities grow like e^(0.9 t) on the attractor and would overflow a double by t = 790, so the long run stops at 100.
-    private readonly OdeProblem problem = new(new BenchmarkLorenzSystem(), [1.0, 1.0, 1.0], 0.0, 100.0, [10.0, 28.0, 8.0 / 3.0]);
+    private readonly OdeProblem problem = new(new LorenzSystem(), [1.0, 1.0, 1.0], 0.0, 100.0, [10.0, 28.0, 8.0 / 3.0]);
 
     private readonly DormandPrince45 withSensitivities = new() { RelativeTolerance = 1e-8, AbsoluteTolerance = 1e-8, KeepSteps = false, Sensitivities = new ForwardSensitivities() };
 

@@ -41,17 +41,11 @@ internal static class SyntheticBoardCapture
             var sd = Math.Sqrt(clean.Sum(v => (v - mean) * (v - mean)) / count);
             var window = 1.1 * clean.Max(Math.Abs);
             var step = 2 * window / 256;
-            var samples = clean.Select(v => (float)(Math.Round((v + 0.005 * sd * Gaussian(random)) / step) * step)).ToArray();
+            var samples = clean.Select(v => (float)(Math.Round((v + 0.005 * sd * GaussianNoise.Next(random)) / step) * step)).ToArray();
             channels.Add(new CaptureChannel($"CH{j + 1}", "V", samples, "synthetic.csv", j + 2));
         }
 
         return new Capture(new UniformTimeBase(0, dt, count), channels, []);
     }
 
-    private static double Gaussian(Random random)
-    {
-        var u1 = 1.0 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
-    }
 }

@@ -1,3 +1,4 @@
+using Patchproof.TestSupport;
 using System.Collections.Immutable;
 using Patchproof.Core.Estimation.MultipleShooting;
 using Patchproof.Core.Simulation;
@@ -50,17 +51,11 @@ internal static class SyntheticLorenzCapture
             var sd = Math.Sqrt(clean.Sum(v => (v - mean) * (v - mean)) / count);
             var noiseSd = 0.005 * sd;
             var offset = channelOffsets?[j] ?? 0;
-            channels[j] = clean.Select(v => Math.Round((v + offset + noiseSd * Gaussian(random)) / Step) * Step).ToArray();
+            channels[j] = clean.Select(v => Math.Round((v + offset + noiseSd * GaussianNoise.Next(random)) / Step) * Step).ToArray();
             noise[j] = Math.Sqrt(noiseSd * noiseSd + Step * Step / 12);
         }
 
         return (channels, noise);
     }
 
-    private static double Gaussian(Random random)
-    {
-        var u1 = 1.0 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
-    }
 }
