@@ -39,12 +39,16 @@ public sealed class FitPageTests : BunitContext
     [Fact]
     public void Render_Running_PollsUntilItSucceedsThenLinksTheReport()
     {
-        var answers = new Queue<FitJob>([DemoData.FitJob(FitJobState.Running, 0.3), DemoData.FitJob(FitJobState.Running, 0.7), DemoData.FitJob(FitJobState.Succeeded, 1)]);
-        api.Fit = () => FakePatchproofApi.Ok(answers.Count > 1 ? answers.Dequeue() : answers.Peek());
+        // The server's answer moves on only when the test says so: the page must show each state it polls.
+        var answer = DemoData.FitJob(FitJobState.Running, 0.3);
+        api.Fit = () => FakePatchproofApi.Ok(Volatile.Read(ref answer));
 
         var cut = RenderPage();
 
         cut.WaitForAssertion(() => Assert.Contains("running, 30 % · multiple shooting", cut.Find(".state").TextContent, StringComparison.Ordinal));
+        Volatile.Write(ref answer, DemoData.FitJob(FitJobState.Running, 0.7));
+        cut.WaitForAssertion(() => Assert.Contains("running, 70 %", cut.Find(".state").TextContent, StringComparison.Ordinal), TimeSpan.FromSeconds(10));
+        Volatile.Write(ref answer, DemoData.FitJob(FitJobState.Succeeded, 1));
         cut.WaitForAssertion(() => Assert.Equal($"fits/{DemoData.FitId}/report", cut.Find("a.button").GetAttribute("href")), TimeSpan.FromSeconds(10));
         Assert.Equal("finished", cut.Find(".state").TextContent);
         Assert.Empty(cut.FindAll("button"));
@@ -53,7 +57,8 @@ public sealed class FitPageTests : BunitContext
     [Fact]
     public void Cancel_WhileRunning_AsksTheServerAndShowsCancelling()
     {
-        api.Fit = () => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Running, 0.5));
+        // Like the server, the fake remembers the cancel request in every later answer.
+        api.Fit = () => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Running, 0.5, cancelRequested: api.CancelCalls > 0));
         api.CancelFit = () => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Running, 0.5, cancelRequested: true));
         var cut = RenderPage();
         cut.WaitForAssertion(() => cut.Find("button"));
@@ -62,6 +67,7 @@ public sealed class FitPageTests : BunitContext
 
         Assert.Equal(1, api.CancelCalls);
         cut.WaitForAssertion(() => Assert.StartsWith("cancelling", cut.Find(".state").TextContent, StringComparison.Ordinal));
+        Assert.True(cut.Find("button").HasAttribute("disabled"));
     }
 
     [Fact]
