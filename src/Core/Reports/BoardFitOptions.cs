@@ -15,6 +15,12 @@ public sealed record BoardFitOptions
     /// <summary>Shooting segment length in problem time units; 0.5 suits Lorenz-type boards (about half a Lyapunov time).</summary>
     public double SegmentProblemUnits { get; init; } = 0.5;
 
+    /// <summary>Prior sd of each channel's DC offset, in volts. A channel offset on a state inside a product term trades
+    /// exactly against that product's partner coefficient and the equation's offset, so the fit needs a prior to stay
+    /// well posed; 0.1 V is generous against a scope's DC offset accuracy of a few tens of mV (from memory), so the
+    /// diagnosis, with its op-amp offset tolerance, decides along that direction rather than this prior.</summary>
+    public double ChannelOffsetPriorSdVolts { get; init; } = 0.1;
+
     /// <summary>Fewer problem time units than this make the record too short to identify a system.</summary>
     public double MinimumProblemUnits { get; init; } = 5;
 }

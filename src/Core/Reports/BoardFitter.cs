@@ -130,7 +130,7 @@ public static class BoardFitter
 
         var segmentSeconds = options.SegmentProblemUnits * design.TimeScaleSeconds;
         var fit = MultipleShootingEstimator.Fit(field, nominal, shootingChannels, 0, timeBase.IntervalSeconds,
-            new MultipleShootingOptions { SegmentSeconds = segmentSeconds, ParameterPriors = priors }, guess);
+            new MultipleShootingOptions { SegmentSeconds = segmentSeconds, ParameterPriors = priors, ChannelOffsetPriorSdVolts = options.ChannelOffsetPriorSdVolts }, guess);
         if (!fit.Converged)
         {
             warnings.Add($"The fit stopped before converging ({fit.ExitReason}); treat its numbers as rough.");

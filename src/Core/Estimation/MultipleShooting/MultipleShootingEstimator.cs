@@ -87,19 +87,10 @@ public static class MultipleShootingEstimator
         var correlation = LagOneAutocorrelation(residuals);
         var inflation = Math.Clamp((1 + correlation) / (1 - correlation), 1, 100);
         var globals = problem.GlobalCount;
-        var covariance = Matrix<double>.Build.Dense(globals, globals, double.NaN);
         var condensed = problem.CondensedCurvature();
-        if (condensed is not null)
-        {
-            try
-            {
-                covariance = condensed.Inverse() * (residualVariance * inflation);
-            }
-            catch (ArgumentException)
-            {
-                // Singular: leave NaN so the report says the estimates cannot be separated.
-            }
-        }
+        var covariance = condensed is null
+            ? Matrix<double>.Build.Dense(globals, globals, double.NaN)
+            : ResolvedInverse(condensed) * (residualVariance * inflation);
 
         var errors = Enumerable.Range(0, globals).Select(p => Math.Sqrt(Math.Max(covariance[p, p], 0))).ToArray();
         var correlationMatrix = Matrix<double>.Build.Dense(globals, globals, (a, b) => covariance[a, b] / (errors[a] * errors[b]));
@@ -133,6 +124,40 @@ public static class MultipleShootingEstimator
             outcome.Iterations,
             outcome.ExitReason,
             outcome.SumOfSquares);
+    }
+
+    /// <summary>The inverse of the condensed curvature where the data resolve it; NaN in the rows and columns of every
+    /// unknown that a flat direction moves.</summary>
+    /// <remarks>An exactly flat direction (a channel offset that trades against a coefficient and an equation offset,
+    /// with no prior to pin it) makes the matrix singular, and a plain inverse then returns rounding noise that differs
+    /// between machines. The symmetric eigendecomposition of the Jacobi-scaled matrix finds such directions: eigenvalues
+    /// below 1e-11 of the largest count as zero.</remarks>
+    private static Matrix<double> ResolvedInverse(Matrix<double> curvature)
+    {
+        var size = curvature.RowCount;
+        var scale = Enumerable.Range(0, size).Select(i => curvature[i, i] > 0 ? 1 / Math.Sqrt(curvature[i, i]) : 0).ToArray();
+        var scaled = Matrix<double>.Build.Dense(size, size, (a, b) => 0.5 * (curvature[a, b] + curvature[b, a]) * scale[a] * scale[b]);
+        var decomposition = scaled.Evd(Symmetricity.Symmetric);
+        var values = decomposition.EigenValues.Select(value => value.Real).ToArray();
+        var vectors = decomposition.EigenVectors;
+        var threshold = 1e-11 * Math.Max(values.Max(), double.Epsilon);
+        var unresolved = new bool[size];
+        var inverse = Matrix<double>.Build.Dense(size, size);
+        for (var e = 0; e < size; e++)
+        {
+            if (values[e] > threshold)
+            {
+                inverse += vectors.Column(e).OuterProduct(vectors.Column(e)) / values[e];
+                continue;
+            }
+
+            for (var i = 0; i < size; i++)
+            {
+                unresolved[i] |= scale[i] == 0 || Math.Abs(vectors[i, e]) > 1e-6;
+            }
+        }
+
+        return Matrix<double>.Build.Dense(size, size, (a, b) => unresolved[a] || unresolved[b] ? double.NaN : inverse[a, b] * scale[a] * scale[b]);
     }
 
     private static double LagOneAutocorrelation(double[][] residuals)
