@@ -59,6 +59,12 @@ public sealed record LevenbergMarquardtOptions
     /// <summary>The finite-difference scheme used when no Jacobian is supplied. Default <see cref="FiniteDifferenceScheme.Central"/>.</summary>
     public FiniteDifferenceScheme FiniteDifferences { get; init; } = FiniteDifferenceScheme.Central;
 
+    /// <summary>Told the iteration count and the cost before every iteration, on the solving thread; null for none.</summary>
+    public IProgress<LevenbergMarquardtIteration>? Progress { get; init; }
+
+    /// <summary>Checked before every iteration: once cancelled, the loop stops with <see cref="OperationCanceledException"/>. Default none.</summary>
+    public CancellationToken Cancellation { get; init; }
+
     /// <summary>Throws when an option is out of range.</summary>
     internal void Validate()
     {

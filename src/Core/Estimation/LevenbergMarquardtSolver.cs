@@ -25,6 +25,7 @@ public static class LevenbergMarquardtSolver
     /// <param name="options">Tolerances, cap and damping; defaults when null.</param>
     /// <returns>The last accepted point, its cost, counters and the exit reason.</returns>
     /// <exception cref="ArgumentOutOfRangeException">When the start has the wrong length or is not finite, or an option is out of range.</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="LevenbergMarquardtOptions.Cancellation"/> is cancelled between iterations.</exception>
     public static LevenbergMarquardtOutcome Minimize(ILevenbergMarquardtProblem problem, ReadOnlySpan<double> initialParameters, LevenbergMarquardtOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(problem);
@@ -74,6 +75,8 @@ public static class LevenbergMarquardtSolver
                 return Finish(LevenbergMarquardtExitReason.MaxIterations);
             }
 
+            options.Cancellation.ThrowIfCancellationRequested();
+            options.Progress?.Report(new LevenbergMarquardtIteration(iterations, options.MaxIterations, cost));
             iterations++;
             for (var j = 0; j < count; j++)
             {

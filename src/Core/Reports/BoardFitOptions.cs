@@ -23,4 +23,15 @@ public sealed record BoardFitOptions
 
     /// <summary>Fewer problem time units than this make the record too short to identify a system.</summary>
     public double MinimumProblemUnits { get; init; } = 5;
+
+    /// <summary>Told each stage of the fit and, during multiple shooting, each iteration; null for none. Reports arrive on the fitting thread.</summary>
+    public IProgress<BoardFitProgress>? Progress { get; init; }
+
+    /// <summary>Checked between stages and between iterations: once cancelled, the fit stops with <see cref="OperationCanceledException"/>. Default none.</summary>
+    public CancellationToken Cancellation { get; init; }
 }
+
+/// <summary>How far a board fit has come.</summary>
+/// <param name="Fraction">Fraction done, 0 to 1 (multiple shooting counts its iterations against the cap, so a fit that converges early jumps ahead).</param>
+/// <param name="Stage">What it is doing, in words, for example "multiple shooting, iteration 12 of 60".</param>
+public sealed record BoardFitProgress(double Fraction, string Stage);

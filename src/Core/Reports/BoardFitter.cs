@@ -3,6 +3,7 @@ using Patchproof.Core.Captures;
 using Patchproof.Core.Captures.Checks;
 using Patchproof.Core.Circuits;
 using Patchproof.Core.Diagnosis;
+using Patchproof.Core.Estimation;
 using Patchproof.Core.Estimation.MultipleShooting;
 
 namespace Patchproof.Core.Reports;
@@ -25,8 +26,10 @@ public static class BoardFitter
     /// <param name="options">Mapping, probe gains, segment length.</param>
     /// <param name="clock">Stamps the report.</param>
     /// <returns>The report, or the errors that make the inputs unusable together (an unknown channel or variable, a non-uniform time base, an unsupported block).</returns>
+    /// <exception cref="OperationCanceledException">When <see cref="BoardFitOptions.Cancellation"/> is cancelled.</exception>
     public static ParseResult<FitReport> Fit(BoardDesign design, Capture capture, BoardFitOptions options, TimeProvider clock)
     {
+        Report(options, 0, "capture checks");
         var stopwatch = Stopwatch.StartNew();
         if (capture.TimeBase is not UniformTimeBase timeBase)
         {
@@ -67,6 +70,7 @@ public static class BoardFitter
         }
 
         var checks = CaptureInspection.Run(capture);
+        Report(options, 0.05, "starting values");
         var warnings = new List<string>();
         var clipped = checks.Where(check => check.Id == "clipping").ToList();
         foreach (var check in clipped)
@@ -129,13 +133,16 @@ public static class BoardFitter
         }
 
         var segmentSeconds = options.SegmentProblemUnits * design.TimeScaleSeconds;
-        var fit = MultipleShootingEstimator.Fit(field, nominal, shootingChannels, 0, timeBase.IntervalSeconds,
-            new MultipleShootingOptions { SegmentSeconds = segmentSeconds, ParameterPriors = priors, ChannelOffsetPriorSdVolts = options.ChannelOffsetPriorSdVolts }, guess);
+        Report(options, 0.1, "multiple shooting");
+        var shooting = new MultipleShootingOptions { SegmentSeconds = segmentSeconds, ParameterPriors = priors, ChannelOffsetPriorSdVolts = options.ChannelOffsetPriorSdVolts };
+        shooting = shooting with { Solver = shooting.Solver with { Progress = IterationProgress(options), Cancellation = options.Cancellation } };
+        var fit = MultipleShootingEstimator.Fit(field, nominal, shootingChannels, 0, timeBase.IntervalSeconds, shooting, guess);
         if (!fit.Converged)
         {
             warnings.Add($"The fit stopped before converging ({fit.ExitReason}); treat its numbers as rough.");
         }
 
+        Report(options, 0.95, "part diagnosis");
         var channelOfVariable = channelIndex.ToDictionary(c => c.Assignment.Variable, c => c.Channel.Name);
         var gainSds = channelIndex.ToDictionary(c => c.Channel.Name, c => options.CalibratedGainSd.TryGetValue(c.Channel.Name, out var sd) ? sd : Math.Log(1 + options.ProbeGainTolerance) / 2);
         var diagnosisProblem = DesignDiagnosisBuilder.Build(design, terms, field, fit, channelOfVariable, gainSds);
@@ -163,8 +170,19 @@ public static class BoardFitter
             TimeConstants(design, diagnosis),
             new FitQuality("multiple shooting", fit.SegmentStates.Count, segmentSeconds, fit.Iterations, fit.ExitReason.ToString(), fit.Converged, fit.VarianceInflation, hiddenNotes, stopwatch.Elapsed.TotalSeconds),
             warnings);
+        Report(options, 1, "done");
         return ParseResult<FitReport>.ForValue(report);
     }
+
+    private static void Report(BoardFitOptions options, double fraction, string stage)
+    {
+        options.Cancellation.ThrowIfCancellationRequested();
+        options.Progress?.Report(new BoardFitProgress(fraction, stage));
+    }
+
+    // Iterations fill 0.1 to 0.95 of the bar against the cap.
+    private static IterationReporter? IterationProgress(BoardFitOptions options) =>
+        options.Progress is { } outer ? new IterationReporter(outer) : null;
 
     private static List<CoefficientEstimate> Coefficients(BoardDesign design, IReadOnlyList<DesignTerm> terms, MultipleShootingResult fit, HashSet<string> observed) =>
         terms.Select((term, t) => new CoefficientEstimate(
@@ -221,4 +239,10 @@ public static class BoardFitter
 
     private static ParseResult<FitReport> Error(string field, string message) =>
         ParseResult<FitReport>.ForError(SourceDiagnostic.ErrorAt(field, 0, 0, message));
+
+    private sealed class IterationReporter(IProgress<BoardFitProgress> outer) : IProgress<LevenbergMarquardtIteration>
+    {
+        public void Report(LevenbergMarquardtIteration value) =>
+            outer.Report(new BoardFitProgress(0.1 + (0.85 * value.Iteration / Math.Max(1, value.MaxIterations)), $"multiple shooting, iteration {value.Iteration + 1} of at most {value.MaxIterations}"));
+    }
 }
