@@ -46,9 +46,10 @@ internal static class ServiceRegistration
         return builder;
     }
 
-    /// <summary>The fit job queue and this process's runner; fits start only when a fit engine (<see cref="IFitJobExecutor"/>) is registered.</summary>
+    /// <summary>The fit job queue, this process's runner and the fit engine (<see cref="BoardFitJobExecutor"/>) behind the <see cref="IFitJobExecutor"/> seam.</summary>
     public static WebApplicationBuilder AddPatchproofFitJobs(this WebApplicationBuilder builder)
     {
+        builder.Services.AddSingleton<IFitJobExecutor, BoardFitJobExecutor>();
         builder.Services.AddSingleton<FitJobQueue>();
         builder.Services.AddSingleton<FitJobSignal>();
         builder.Services.AddHostedService<FitJobRunner>();

@@ -132,7 +132,7 @@ public abstract class FitsApiTests(ServerDatabase database)
     [Fact]
     public async Task StartFit_NoEngineRegistered_AnswersNotImplemented()
     {
-        await using var api = ApiTest.Start(database);
+        await using var api = ApiTest.Start(database, new TestServerSettings { WithoutEngine = true });
         var (board, design, capture) = await api.CreateFittableBoardAsync();
 
         using var response = await api.Client.PostAsJsonAsync("/api/fits", new StartFitRequest(board.Id, design.Version, [capture]), ApiTest.Token);

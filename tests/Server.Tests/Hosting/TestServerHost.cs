@@ -14,6 +14,9 @@ internal sealed record TestServerSettings
 {
     public ScriptedFitExecutor? Executor { get; init; }
 
+    /// <summary>Removes the fit engine, as on a server built without one.</summary>
+    public bool WithoutEngine { get; init; }
+
     public FakeTimeProvider? Time { get; init; }
 
     public int Workers { get; init; } = 1;
@@ -82,6 +85,11 @@ internal sealed class TestServerHost : WebApplicationFactory<Program>
             services.RemoveAll<TimeProvider>();
             services.AddSingleton<TimeProvider>(Time);
             services.Configure<HostOptions>(host => host.ShutdownTimeout = settings.ShutdownTimeout);
+            if (settings.WithoutEngine)
+            {
+                services.RemoveAll<IFitJobExecutor>();
+            }
+
             if (settings.Executor is { } executor)
             {
                 services.AddSingleton<IFitJobExecutor>(executor);

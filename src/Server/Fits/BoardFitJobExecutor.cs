@@ -1,0 +1,78 @@
+using Patchproof.Core;
+using Patchproof.Core.Captures;
+using Patchproof.Core.Circuits.Files;
+using Patchproof.Core.Reports;
+using Patchproof.Server.Reports;
+
+namespace Patchproof.Server.Fits;
+
+/// <summary>The fit engine: reads the design and the stored capture with the core's readers and runs <see cref="BoardFitter"/>.</summary>
+/// <remarks>
+/// The core fits one capture at a time; a fit of several captures fits the first and says so in the result's notes.
+/// The channels are taken in file order for the design's variables (sign +1), as the core does when no mapping is given.
+/// Progress is the core's: its stages, then one report per Levenberg-Marquardt iteration; a cancel request stops the
+/// fit between iterations.
+/// </remarks>
+internal sealed class BoardFitJobExecutor(TimeProvider clock) : IFitJobExecutor
+{
+    private const double ReadingShare = 0.05;
+    private const double FittingShare = 0.93;
+
+    public Task<FitJobOutcome> ExecuteAsync(FitJobInput input, IProgress<FitJobProgress> progress, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(input);
+        ArgumentNullException.ThrowIfNull(progress);
+        return Task.FromResult(Execute(input, progress, cancellationToken));
+    }
+
+    private FitJobOutcome Execute(FitJobInput input, IProgress<FitJobProgress> progress, CancellationToken cancellationToken)
+    {
+        progress.Report(new FitJobProgress(0, "reading the design"));
+        var design = DesignFileReader.Read(input.DesignDocument, $"design version {input.DesignVersion}");
+        if (!design.TryGetValue(out var board))
+        {
+            return FitJobOutcome.Failed("The design cannot be read: " + Describe(design.Errors));
+        }
+
+        var first = input.Captures[0];
+        cancellationToken.ThrowIfCancellationRequested();
+        progress.Report(new FitJobProgress(0.01, "reading the capture"));
+        ParseResult<Capture> read;
+        using (var stream = new FileStream(first.CsvPath, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan))
+        {
+            read = CaptureReader.Read(stream, first.FileName);
+        }
+
+        if (!read.TryGetValue(out var capture))
+        {
+            return FitJobOutcome.Failed("The capture cannot be read: " + Describe(read.Errors));
+        }
+
+        var options = new BoardFitOptions
+        {
+            Cancellation = cancellationToken,
+            Progress = new StageProgress(progress),
+        };
+        var fitted = BoardFitter.Fit(board, capture, options, clock);
+        if (!fitted.TryGetValue(out var report))
+        {
+            return FitJobOutcome.Failed("The design and the capture cannot be fitted together: " + Describe(fitted.Errors));
+        }
+
+        progress.Report(new FitJobProgress(0.99, "writing the report"));
+        var notes = input.Captures.Count > 1
+            ? new[] { $"The fit used {first.FileName}, the first of the {input.Captures.Count} captures chosen; fit the others one at a time to compare them." }
+            : [];
+        return FitJobOutcome.Succeeded(FitResultJson.ToElement(FitResultMapper.Map(report, first.CaptureId, first.FileName, notes)));
+    }
+
+    private static string Describe(IReadOnlyList<SourceDiagnostic> errors) =>
+        string.Join("; ", errors.Take(5).Select(e => e.Line > 0 ? $"{e.File}:{e.Line}:{e.Column}: {e.Message}" : $"{e.File}: {e.Message}"));
+
+    /// <summary>Passes the core's stages on, scaled into the fitting share of the bar.</summary>
+    private sealed class StageProgress(IProgress<FitJobProgress> outer) : IProgress<BoardFitProgress>
+    {
+        public void Report(BoardFitProgress value) =>
+            outer.Report(new FitJobProgress(ReadingShare + (FittingShare * value.Fraction), value.Stage));
+    }
+}
