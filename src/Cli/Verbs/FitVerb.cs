@@ -126,6 +126,7 @@ internal static class FitVerb
             output.WriteLine(string.Create(invariant, $"  {timeConstant.Integrator} integrator time constant {1000 * timeConstant.EffectiveSeconds:0.000} ms per unit (design {1000 * timeConstant.NominalSeconds:0.000} ms)"));
         }
 
+        output.WriteLine("Structure: " + report.StructureCheck.Message);
         var q = report.Quality;
         output.WriteLine(string.Create(invariant, $"Fit: {q.Method}, {q.Segments} segments of {1000 * q.SegmentSeconds:0.###} ms, {q.Iterations} iterations ({q.ExitReason}), {q.ElapsedSeconds:0.0} s."));
         if (q.HiddenVariables.Count > 0)

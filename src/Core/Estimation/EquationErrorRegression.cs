@@ -103,7 +103,7 @@ public static class EquationErrorRegression
         return new PreparedChannels(halfWidth, order, smoothed, derivatives, usable.ToArray());
     }
 
-    private static EquationFit FitEquation(int equation, IReadOnlyList<RegressionTerm> terms, PreparedChannels prepared, double sampleInterval, EquationErrorOptions options)
+    internal static EquationFit FitEquation(int equation, IReadOnlyList<RegressionTerm> terms, PreparedChannels prepared, double sampleInterval, EquationErrorOptions options)
     {
         var allTerms = options.IncludeConstant ? terms.Append(new RegressionTerm("1", [])).ToList() : terms.ToList();
         var rows = prepared.UsableSamples.Length;

@@ -142,7 +142,24 @@ public static class BoardFitter
             warnings.Add($"The fit stopped before converging ({fit.ExitReason}); treat its numbers as rough.");
         }
 
-        Report(options, 0.95, "part diagnosis");
+        Report(options, 0.95, "structure and mapping checks");
+        var structure = hidden.Count > 0
+            ? StructureCheck.NotPerformed($"it needs every variable recorded, and {string.Join(", ", hidden.Select(j => variables[j]))} was not.")
+            : CheckStructure(design, terms, variables, shootingChannels, fit, timeBase.IntervalSeconds);
+        var mappingCheck = hidden.Count > 0
+            ? MappingCheck.NotPerformed("it needs every variable recorded.")
+            : CheckMapping(design, terms, variables, shootingChannels, timeBase.IntervalSeconds, structure);
+        if (mappingCheck.BetterMappingFound)
+        {
+            warnings.Add(mappingCheck.Message);
+        }
+
+        if (structure.Findings.Count > 0)
+        {
+            warnings.Add("The board does not compute the design's equations (see the structure check): fix the wiring before trusting any part finding.");
+        }
+
+        Report(options, 0.97, "part diagnosis");
         var channelOfVariable = channelIndex.ToDictionary(c => c.Assignment.Variable, c => c.Channel.Name);
         var gainSds = channelIndex.ToDictionary(c => c.Channel.Name, c => options.CalibratedGainSd.TryGetValue(c.Channel.Name, out var sd) ? sd : Math.Log(1 + options.ProbeGainTolerance) / 2);
         var diagnosisProblem = DesignDiagnosisBuilder.Build(design, terms, field, fit, channelOfVariable, gainSds);
@@ -169,7 +186,11 @@ public static class BoardFitter
                 fit.ResidualRmsVolts[c])).ToList(),
             TimeConstants(design, diagnosis),
             new FitQuality("multiple shooting", fit.SegmentStates.Count, segmentSeconds, fit.Iterations, fit.ExitReason.ToString(), fit.Converged, fit.VarianceInflation, hiddenNotes, stopwatch.Elapsed.TotalSeconds),
-            warnings);
+            warnings)
+        {
+            StructureCheck = structure,
+            MappingCheck = mappingCheck,
+        };
         Report(options, 1, "done");
         return ParseResult<FitReport>.ForValue(report);
     }
@@ -183,6 +204,44 @@ public static class BoardFitter
     // Iterations fill 0.1 to 0.95 of the bar against the cap.
     private static IterationReporter? IterationProgress(BoardFitOptions options) =>
         options.Progress is { } outer ? new IterationReporter(outer) : null;
+
+    /// <summary>The mapping check over the recorded channels, in problem time units, with the structure check's filter.</summary>
+    private static MappingCheck CheckMapping(BoardDesign design, IReadOnlyList<DesignTerm> terms, List<string> variables, List<ShootingChannel> channels, double intervalSeconds, StructureCheckResult structure)
+    {
+        var ordered = channels.OrderBy(c => c.StateIndex).ToList();
+        var samples = ordered.Select(c => c.Samples.ToArray()).ToList();
+        var equations = variables.Select(v => (IReadOnlyList<RegressionTerm>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant)
+            .Select(t => new RegressionTerm(t.Basis.ToString(), t.Basis.Variables.Select(name => variables.IndexOf(name)).ToList())).ToList()).ToList();
+        var nominal = variables.Select(v => (IReadOnlyList<double>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant).Select(t => t.NominalCoefficient).ToList()).ToList();
+        var options = new EquationErrorOptions { Filter = structure.Performed ? (structure.FilterHalfWidth, structure.FilterOrder) : null };
+        var ranking = ChannelMappingSearch.Rank(samples, intervalSeconds / design.TimeScaleSeconds, equations, nominal, options);
+        var used = ordered.Select((c, k) => (k, Math.Sign(c.NominalGain))).ToList();
+        return MappingCheck.Compare(ranking, used, variables, ordered.Select(c => c.Name).ToList());
+    }
+
+    /// <summary>The structure check on the channels corrected by the fit's offsets and gains, in problem time units.</summary>
+    private static StructureCheckResult CheckStructure(BoardDesign design, IReadOnlyList<DesignTerm> terms, List<string> variables, List<ShootingChannel> channels, MultipleShootingResult fit, double intervalSeconds)
+    {
+        var states = new double[variables.Count][];
+        var excluded = new bool[channels[0].Samples.Count];
+        for (var c = 0; c < channels.Count; c++)
+        {
+            var channel = channels[c];
+            var offset = fit.ChannelOffsetsVolts[c];
+            var gain = fit.ChannelGains[c];
+            states[channel.StateIndex] = channel.Samples.Select(v => (v - offset) / gain).ToArray();
+            for (var i = 0; i < excluded.Length && channel.Excluded is { } mask; i++)
+            {
+                excluded[i] |= mask[i];
+            }
+        }
+
+        var tau = design.TimeScaleSeconds;
+        var equations = variables.Select(v => (IReadOnlyList<RegressionTerm>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant)
+            .Select(t => new RegressionTerm(t.Basis.ToString(), t.Basis.Variables.Select(name => variables.IndexOf(name)).ToList())).ToList()).ToList();
+        var nominal = variables.Select(v => (IReadOnlyList<double>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant).Select(t => t.NominalCoefficient * tau).ToList()).ToList();
+        return StructureCheck.Run(states, variables, intervalSeconds / tau, equations, nominal, fitOptions: new EquationErrorOptions { Excluded = excluded });
+    }
 
     private static List<CoefficientEstimate> Coefficients(BoardDesign design, IReadOnlyList<DesignTerm> terms, MultipleShootingResult fit, HashSet<string> observed) =>
         terms.Select((term, t) => new CoefficientEstimate(

@@ -1,5 +1,6 @@
 using Patchproof.Core.Captures.Checks;
 using Patchproof.Core.Diagnosis;
+using Patchproof.Core.Estimation;
 
 namespace Patchproof.Core.Reports;
 
@@ -40,6 +41,12 @@ public sealed record FitReport(
 
     /// <summary>The report format's version; raised on any incompatible change.</summary>
     public const int FormatVersion = 1;
+
+    /// <summary>Whether the board computes the design's terms and no others (equation-error regression on an extended library).</summary>
+    public StructureCheckResult StructureCheck { get; init; } = Estimation.StructureCheck.NotPerformed("not run");
+
+    /// <summary>Whether another reading of the channels fits the capture far better than the one used.</summary>
+    public MappingCheck MappingCheck { get; init; } = MappingCheck.NotPerformed("not run");
 
     /// <summary>True when nothing makes the findings unsafe.</summary>
     public bool FindingsAreSafe => Warnings.Count == 0;

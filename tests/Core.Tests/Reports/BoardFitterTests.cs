@@ -1,6 +1,9 @@
 using Microsoft.Extensions.Time.Testing;
+using Patchproof.Core.Circuits.Files;
 using Patchproof.Core.Diagnosis;
+using Patchproof.Core.Estimation;
 using Patchproof.Core.Reports;
+using Patchproof.TestSupport;
 
 namespace Patchproof.Core.Tests.Reports;
 
@@ -75,6 +78,57 @@ public sealed class BoardFitterTests
 
         Assert.False(result.Success);
         Assert.Contains("CH9", result.Errors[0].Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_HealthyBoard_StructureCheckFindsTheDesignsTerms()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 17, channelOffsetsVolts: [0.02, 0.04, -0.03]);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions(), Clock).Value;
+
+        Assert.True(report.StructureCheck.Passed, report.StructureCheck.Message);
+        Assert.True(report.MappingCheck.Performed);
+        Assert.False(report.MappingCheck.BetterMappingFound, report.MappingCheck.Message);
+    }
+
+    [Fact]
+    public void Fit_ProbesOfXAndZSwappedInTheMapping_MappingCheckNamesTheRightReading()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 19, problemUnits: 10);
+        var swapped = ChannelAssignment.ParseList("CH3=x,CH2=y,CH1=z").Value;
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions { Mapping = swapped }, Clock).Value;
+
+        Assert.True(report.MappingCheck.BetterMappingFound, report.MappingCheck.Message);
+        Assert.Contains(report.MappingCheck.Best, new[] { "x=CH1, y=CH2, z=CH3", "x=-CH1, y=-CH2, z=CH3" });
+        Assert.Equal("x=CH3, y=CH2, z=CH1", report.MappingCheck.Used);
+        Assert.Contains(report.Warnings, w => w.Contains("far better", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Fit_InputWireMovedToTheWrongIntegrator_StructureCheckNamesBothEnds()
+    {
+        // R4 (the y integrator's input from y) wired into the z integrator instead: y' loses its -y term, z' gains one.
+        var path = Path.Combine(ReferenceDataFiles.RepositoryRoot, "designs", "qh-l3-wren.json");
+        var text = File.ReadAllText(path);
+        var moved = text
+            .Replace("""{ "from": "y", "resistor": "R4" },""", "", StringComparison.Ordinal)
+            .Replace("""{ "from": "z", "resistor": "R7" } ] },""", """{ "from": "z", "resistor": "R7" }, { "from": "y", "resistor": "R4" } ] },""", StringComparison.Ordinal);
+        Assert.NotEqual(text, moved);
+        var asBuilt = DesignFileReader.Read(moved, "miswired.json").Value;
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(asBuilt, seed: 18);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions(), Clock).Value;
+
+        var findings = report.StructureCheck.Findings;
+        Assert.Contains(findings, f => (f.Equation, f.Term, f.Kind) == ("y", "y", StructureFindingKind.MissingTerm));
+        Assert.Contains(findings, f => (f.Equation, f.Term, f.Kind) == ("z", "y", StructureFindingKind.UnexpectedTerm));
+        Assert.False(report.FindingsAreSafe);
+        Assert.Contains(report.Warnings, w => w.Contains("structure check", StringComparison.Ordinal));
     }
 
     [Fact]
