@@ -1,7 +1,7 @@
 using System.Text;
 using System.Text.Json;
 
-namespace Patchproof.Core.Circuits.Files;
+namespace Patchproof.Core;
 
 /// <summary>Maps JSON paths (<c>$.blocks[2].inputs[0].from</c>) to the line and column where their value starts.</summary>
 /// <remarks>Built by one pass of <see cref="Utf8JsonReader"/> over the text; lines and columns count

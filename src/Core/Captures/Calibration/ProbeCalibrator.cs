@@ -1,0 +1,183 @@
+using System.Globalization;
+using Patchproof.Core.Captures.Checks;
+
+namespace Patchproof.Core.Captures.Calibration;
+
+/// <summary>Measures each channel's gain and offset against a reference channel from a capture in which every probe sat on one node.</summary>
+/// <remarks>
+/// <para>Model: y_c(t) = a_c + b_c s(t) + e_c(t) and y_ref(t) = s(t) + e_ref(t), where both readings carry errors of the
+/// same kind: the scope's 8-bit steps (variance Δ²/12) and noise. Ordinary least squares of y_c on y_ref treats the
+/// reference as exact and so shrinks the slope by the factor s_ss / (s_ss + σ_ref²); regressing the other way round
+/// gives a different answer again. The errors-in-variables fit that is consistent here is Deming regression: the
+/// maximum-likelihood line when the ratio λ = σ_c² / σ_ref² of the two error variances is known [1, 2]:
+/// b = (s_yy - λ s_xx + √((s_yy - λ s_xx)² + 4 λ s_xy²)) / (2 s_xy), a = ȳ - b x̄.
+/// λ comes from each channel's own error level, σ² = max(noise², Δ²/12), with the noise from the median absolute second
+/// difference and Δ the smallest step between recorded levels. Orthogonal (total) least squares is the special case
+/// λ = 1, right only when both channels have the same step, which different volts/div settings break; regression
+/// against the channels' mean still carries the mean's own error and ties every channel's answer to the others.</para>
+/// <para>Uncertainty: a block jackknife over contiguous blocks [3]. Quantization errors of a slowly swept signal and the
+/// scope's own filtering correlate neighbouring samples, so a per-sample formula would be too optimistic; leaving out one
+/// block at a time keeps that correlation inside the blocks.</para>
+/// <para>One-signal check: if both probes saw the same node, the residual y_c - a - b y_ref is only the two channels'
+/// errors, with RMS √(σ_c² + b² σ_ref²). A residual RMS more than <see cref="ProbeCalibrationOptions.ResidualRatioLimit"/>
+/// times that, or a correlation below <see cref="ProbeCalibrationOptions.MinimumCorrelation"/>, means another node, a
+/// loose ground, an AC-coupled channel or a delay between channels. Samples where any channel clipped are left out.</para>
+/// <para>References: [1] W. E. Deming, Statistical Adjustment of Data, Wiley 1943. [2] W. A. Fuller, Measurement Error
+/// Models, Wiley 1987, section 1.3. [3] H. R. Künsch, The jackknife and the bootstrap for general stationary
+/// observations, Ann. Statist. 17 (1989) 1217-1241.</para>
+/// </remarks>
+public static class ProbeCalibrator
+{
+    /// <summary>Calibrates the capture's voltage channels against the reference with the default settings.</summary>
+    /// <param name="capture">The calibration capture: every probe on one node.</param>
+    /// <param name="sourceFiles">The files it was read from, for the record.</param>
+    /// <param name="clock">Stamps the calibration.</param>
+    public static ProbeCalibrationResult Calibrate(Capture capture, IReadOnlyList<string> sourceFiles, TimeProvider clock) =>
+        Calibrate(capture, sourceFiles, new ProbeCalibrationOptions(), clock);
+
+    /// <summary>Calibrates the capture's voltage channels against the reference.</summary>
+    /// <param name="capture">The calibration capture: every probe on one node.</param>
+    /// <param name="sourceFiles">The files it was read from, for the record.</param>
+    /// <param name="options">Reference channel and check limits.</param>
+    /// <param name="clock">Stamps the calibration.</param>
+    /// <returns>The gains and offsets with the findings; <see cref="ProbeCalibrationResult.IsUsable"/> says whether to use them.</returns>
+    /// <exception cref="ArgumentOutOfRangeException">An option is out of range.</exception>
+    public static ProbeCalibrationResult Calibrate(Capture capture, IReadOnlyList<string> sourceFiles, ProbeCalibrationOptions options, TimeProvider clock)
+    {
+        ArgumentNullException.ThrowIfNull(capture);
+        ArgumentNullException.ThrowIfNull(sourceFiles);
+        ArgumentNullException.ThrowIfNull(options);
+        ArgumentNullException.ThrowIfNull(clock);
+        Preconditions.CheckArgumentRange(nameof(options), options.JackknifeBlocks >= 2, "the jackknife needs at least two blocks");
+        Preconditions.CheckArgumentRange(nameof(options), options.ResidualRatioLimit > 1 && options.MinimumCorrelation is > 0 and < 1 && options.MinimumSignalSteps > 0, "a check limit is out of range");
+
+        var findings = new List<string>();
+        var voltage = capture.Channels.Where(c => c.IsVoltage).ToList();
+        foreach (var other in capture.Channels.Where(c => !c.IsVoltage))
+        {
+            findings.Add($"{other.Name} is not a voltage channel (unit {other.Unit}); it was left out.");
+        }
+
+        var reference = options.ReferenceChannel is null ? voltage.FirstOrDefault() : capture.FindChannel(options.ReferenceChannel);
+        if (options.ReferenceChannel is not null && (reference is null || !reference.IsVoltage))
+        {
+            findings.Add($"The capture has no voltage channel '{options.ReferenceChannel}' to use as the reference (it has {string.Join(", ", voltage.Select(c => c.Name))}).");
+            return new ProbeCalibrationResult(ProbeCalibrationStatus.TooFewChannels, null, findings);
+        }
+
+        var minimumSamples = 4 * options.JackknifeBlocks;
+        if (voltage.Count < 2 || reference is null || capture.SampleCount < minimumSamples)
+        {
+            findings.Add($"A calibration needs at least two voltage channels and {minimumSamples} samples; this capture has {voltage.Count} and {capture.SampleCount}.");
+            return new ProbeCalibrationResult(ProbeCalibrationStatus.TooFewChannels, null, findings);
+        }
+
+        var ordered = voltage.Where(c => c != reference).Prepend(reference).ToList();
+        var kept = KeptSamples(capture, ordered);
+        if (kept.Length < minimumSamples)
+        {
+            findings.Add($"Only {kept.Length} samples are left once clipped stretches are removed; record again with a wider volts/div.");
+            return new ProbeCalibrationResult(ProbeCalibrationStatus.TooFewChannels, null, findings);
+        }
+
+        var signals = ordered.Select(c => kept.Select(i => (double)c.Samples.Span[i]).ToArray()).ToList();
+        var errors = ordered.Select(c => ErrorLevel(c)).ToList();
+        var x = signals[0];
+        var meanX = x.Average();
+        var status = ProbeCalibrationStatus.Calibrated;
+        var referenceSd = Math.Sqrt(x.Sum(v => (v - meanX) * (v - meanX)) / x.Length);
+        var referenceSteps = referenceSd / errors[0].Step;
+        if (!(referenceSteps >= options.MinimumSignalSteps))
+        {
+            status = ProbeCalibrationStatus.TooLittleSignal;
+            findings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"{reference.Name} swings over only {referenceSteps:0.#} quantization steps (standard deviation; at least {options.MinimumSignalSteps:0} needed): probe a node with a larger swing, or use a finer volts/div so the signal fills most of the screen."));
+        }
+
+        var channels = new List<ChannelCalibration>
+        {
+            new(reference.Name, 1, 0, 0, 0, 1, 0, errors[0].Sigma * Math.Sqrt(2), errors[0].Step),
+        };
+        for (var c = 1; c < ordered.Count; c++)
+        {
+            var y = signals[c];
+            var meanY = y.Average();
+            var lambda = errors[c].Sigma * errors[c].Sigma / (errors[0].Sigma * errors[0].Sigma);
+            var total = DemingSums.Of(x, y, meanX, meanY);
+            var (slope, centredIntercept, sxx, syy, sxy) = total.Line(lambda);
+            var intercept = meanY + centredIntercept - (slope * meanX);
+            var blockSlopes = new double[options.JackknifeBlocks];
+            var blockIntercepts = new double[options.JackknifeBlocks];
+            for (var k = 0; k < options.JackknifeBlocks; k++)
+            {
+                var from = (int)((long)k * x.Length / options.JackknifeBlocks);
+                var to = (int)((long)(k + 1) * x.Length / options.JackknifeBlocks);
+                var block = DemingSums.Of(x.AsSpan(from, to - from), y.AsSpan(from, to - from), meanX, meanY);
+                var (s, i, _, _, _) = (total - block).Line(lambda);
+                blockSlopes[k] = s;
+                blockIntercepts[k] = meanY + i - (s * meanX);
+            }
+
+            var residualRms = Math.Sqrt(Math.Max(0, syy - (2 * slope * sxy) + (slope * slope * sxx)));
+            var expected = Math.Sqrt((errors[c].Sigma * errors[c].Sigma) + (slope * slope * errors[0].Sigma * errors[0].Sigma));
+            var correlation = sxy / Math.Sqrt(sxx * syy);
+            channels.Add(new ChannelCalibration(ordered[c].Name, slope, Jackknife(blockSlopes), intercept, Jackknife(blockIntercepts), correlation, residualRms, expected, errors[c].Step));
+
+            if (!(residualRms <= options.ResidualRatioLimit * expected) || !(correlation >= options.MinimumCorrelation))
+            {
+                status = status is ProbeCalibrationStatus.Calibrated ? ProbeCalibrationStatus.NotOneSignal : status;
+                findings.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"{ordered[c].Name} does not follow {reference.Name}: residual {1000 * residualRms:0.0} mV rms where the quantization steps and noise allow {1000 * expected:0.0} mV, correlation {correlation:0.00000}. The probes did not see one signal: check that every probe tip and ground clip sit on the same node, that no channel is AC-coupled or band-limited differently from the others, and record again."));
+            }
+            else if (Math.Abs(slope - 1) > options.GainWarningDistance)
+            {
+                findings.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"{ordered[c].Name} reads {slope:0.###} times {reference.Name}: far more than any probe tolerance; check both channels' probe-factor settings (1x against 10x) and whether a channel is inverted."));
+            }
+        }
+
+        var calibration = new ProbeCalibration(reference.Name, channels, kept.Length, kept.Length * capture.TimeBase.DurationSeconds / Math.Max(1, capture.SampleCount),
+            sourceFiles.ToArray(), clock.GetUtcNow(), options.Note);
+        return new ProbeCalibrationResult(status, calibration, findings);
+    }
+
+    /// <summary>Sample indices where no channel sits at a clipped level.</summary>
+    private static int[] KeptSamples(Capture capture, IReadOnlyList<CaptureChannel> channels)
+    {
+        var clipped = CaptureInspection.Run(capture).Where(check => check.Id == "clipping" && check.Channel is not null).ToList();
+        var levels = channels.Select(c => clipped.Where(check => check.Channel == c.Name).Select(check => check.Values["levelVolts"]).ToArray()).ToList();
+        var kept = new List<int>(capture.SampleCount);
+        for (var i = 0; i < capture.SampleCount; i++)
+        {
+            var excluded = false;
+            for (var c = 0; c < channels.Count && !excluded; c++)
+            {
+                var value = channels[c].Samples.Span[i];
+                excluded = levels[c].Any(level => Math.Abs(value - level) <= 1e-6 * Math.Max(1, Math.Abs(level)));
+            }
+
+            if (!excluded)
+            {
+                kept.Add(i);
+            }
+        }
+
+        return kept.ToArray();
+    }
+
+    /// <summary>A channel's error level: σ = max(noise, Δ/√12), with the noise from second differences and Δ the smallest level step.</summary>
+    private static (double Sigma, double Step) ErrorLevel(CaptureChannel channel)
+    {
+        var noise = ChannelStatistics.NoiseRms(channel.Samples.Span);
+        var (_, _, step) = ChannelStatistics.Levels(channel.Samples.Span);
+        step = double.IsFinite(step) && step > 0 ? step : Math.Max(noise, 1e-9);
+        return (Math.Max(noise, step / Math.Sqrt(12)), step);
+    }
+
+    private static double Jackknife(double[] estimates)
+    {
+        var mean = estimates.Average();
+        var k = estimates.Length;
+        return Math.Sqrt((k - 1.0) / k * estimates.Sum(v => (v - mean) * (v - mean)));
+    }
+}
