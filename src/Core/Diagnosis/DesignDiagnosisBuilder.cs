@@ -15,7 +15,8 @@ namespace Patchproof.Core.Diagnosis;
 /// <para>Columns: every part by its log-sensitivity on each row (resistor -1, capacitor -1, multiplier +1, inverter
 /// feedback +1 and input -1), each integrator's input offset (+1 on its own offset row, 5 mV tolerance: common
 /// practice for general-purpose op-amps, from memory), each probe gain (+1 on its own equation's rows, -p for each
-/// power p of its channel in a term's basis), and the scope's time base.</para>
+/// power p of its channel in a term's basis; a calibrated channel's prior is the calibration's, and the calibrated channels then
+/// share one more column for the reference probe's own gain error, at the probe tolerance), and the scope's time base.</para>
 /// </remarks>
 public static class DesignDiagnosisBuilder
 {
@@ -33,6 +34,9 @@ public static class DesignDiagnosisBuilder
     /// <param name="channelOfVariable">The channel name recording each variable; hidden variables are absent.</param>
     /// <param name="gainSdOfChannel">The log-gain prior sd of each channel (about 0.01 uncalibrated, 0.001-0.003 calibrated);
     /// null when the fit estimated the gains itself, so that their uncertainty is already in its covariance.</param>
+    /// <param name="calibratedChannels">Channels whose gains a calibration capture measured against one reference: their columns are
+    /// marked <see cref="DiagnosisColumn.PinnedByCalibration"/>, and they share one more column, the reference probe's own error.</param>
+    /// <param name="commonGainSd">That shared column's log-gain prior sd (the probe tolerance's).</param>
     /// <returns>The rows, columns and covariance.</returns>
     public static DiagnosisProblem Build(
         BoardDesign design,
@@ -40,7 +44,9 @@ public static class DesignDiagnosisBuilder
         PolynomialVectorField field,
         MultipleShootingResult fit,
         IReadOnlyDictionary<string, string> channelOfVariable,
-        IReadOnlyDictionary<string, double>? gainSdOfChannel)
+        IReadOnlyDictionary<string, double>? gainSdOfChannel,
+        IReadOnlyCollection<string>? calibratedChannels = null,
+        double commonGainSd = 0)
     {
         var variables = design.Variables.Select(v => v.Name).ToList();
         bool Observed(string variable) => channelOfVariable.ContainsKey(variable);
@@ -136,7 +142,18 @@ public static class DesignDiagnosisBuilder
                 return (term.Variable == variable ? 1.0 : 0.0) - term.Basis.Variables.Count(v => v == variable);
             }).ToArray();
             var sd = gainSdOfChannel!.TryGetValue(channel, out var given) ? given : Math.Log(1.02) / 2;
-            columns.Add(DiagnosisColumn.ForChannelGain(channel, Math.Exp(2 * sd) - 1, entries, sd));
+            columns.Add(DiagnosisColumn.ForChannelGain(channel, Math.Exp(2 * sd) - 1, entries, sd) with { PinnedByCalibration = calibratedChannels?.Contains(channel) == true });
+        }
+
+        var pinned = columns.Where(column => column.PinnedByCalibration).ToList();
+        if (pinned.Count > 0 && commonGainSd > 0)
+        {
+            var entries = rows.Select((_, i) => pinned.Sum(column => column.Entries[i])).ToArray();
+            columns.Add(DiagnosisColumn.ForChannelGain("common", Math.Exp(2 * commonGainSd) - 1, entries, commonGainSd) with
+            {
+                Id = DiagnosisColumn.CommonGainId,
+                Label = "the gain every calibrated probe shares (the reference probe's own error)",
+            });
         }
 
         columns.Add(DiagnosisColumn.ForTimeBase(rows.Select(row => row.Kind is DiagnosisRowKind.LogCoefficient ? 1.0 : 0.0).ToArray()));

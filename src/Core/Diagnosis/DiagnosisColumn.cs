@@ -64,6 +64,12 @@ public sealed record DiagnosisColumn
     /// <summary>The unit of <see cref="NominalValue"/>, for example "Ω", "F", "1/V", "V".</summary>
     public string Unit { get; init; } = "";
 
+    /// <summary>For a probe gain: true when a calibration capture set its prior (a few tenths of a percent), false when the probe tolerance did.</summary>
+    public bool PinnedByCalibration { get; init; }
+
+    /// <summary>The id of the column for the gain that every calibrated channel shares: the reference probe's own, unmeasured error.</summary>
+    public const string CommonGainId = "gain:common";
+
     /// <summary>True for parts that a finding can name; probe gains, channel offsets and the time base are nuisances.</summary>
     public bool IsFaultCandidate => Kind is DiagnosisColumnKind.PartValue or DiagnosisColumnKind.PartOffset;
 

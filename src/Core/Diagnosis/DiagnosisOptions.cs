@@ -23,4 +23,16 @@ public sealed record DiagnosisOptions
 
     /// <summary>How many standard deviations the interval spans on each side (2 gives about 95 %). Default 2.</summary>
     public double IntervalSigmas { get; init; } = 2;
+
+    /// <summary>The log-gain prior sd a calibration capture gives a probe, used to say what a calibration would buy. Default 0.002
+    /// (0.2 %: the calibration's own error is far smaller; what remains is the drift between the two recordings, from memory).</summary>
+    public double CalibratedGainLogSd { get; init; } = 0.002;
+
+    /// <summary>A part whose whitened column lies this close (cos²) to the span of the uncalibrated probe-gain columns can be
+    /// mimicked by probe gains. Default 0.9.</summary>
+    public double GainMimicCosineSquared { get; init; } = 0.9;
+
+    /// <summary>A finding depends on the probe gains when, besides being mimicked by them, their priors make up at least this
+    /// share of its posterior variance. Default 0.5.</summary>
+    public double GainVarianceShare { get; init; } = 0.5;
 }

@@ -72,7 +72,11 @@ public sealed record PartGroup(string RepresentativeId, IReadOnlyList<string> Me
 /// <param name="ColumnId">The part.</param>
 /// <param name="FreedSd">Posterior sd of u with the part freed (log units or volts); infinite when unobservable.</param>
 /// <param name="IsObservable">False when no measured row depends on the part.</param>
-public sealed record PartResolution(string ColumnId, double FreedSd, bool IsObservable);
+public sealed record PartResolution(string ColumnId, double FreedSd, bool IsObservable)
+{
+    /// <summary>The same posterior sd if a calibration capture pinned the uncalibrated probe gains; null when no gain is uncalibrated.</summary>
+    public double? FreedSdWithCalibration { get; init; }
+}
 
 /// <summary>One named part: what it should be, what it behaves like, how sure, and what else could explain it.</summary>
 /// <param name="PartId">The part, for example <c>R5</c>.</param>
@@ -103,7 +107,11 @@ public sealed record PartFinding(
     double LogDeviationSd,
     PartVerdict Verdict,
     IReadOnlyList<PartFinding> Alternatives,
-    string Sentence);
+    string Sentence)
+{
+    /// <summary>How far the finding rests on the probe gains, and what a calibration capture would buy; null when no probe gain is uncalibrated.</summary>
+    public ProbeGainDependence? GainDependence { get; init; }
+}
 
 /// <summary>Everything the diagnosis concluded.</summary>
 /// <param name="Outcome">The overall answer.</param>

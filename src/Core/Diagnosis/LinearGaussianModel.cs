@@ -61,6 +61,36 @@ internal sealed class LinearGaussianModel
         return a.DotProduct(b) / b.DotProduct(b);
     }
 
+    /// <summary>Least squares of column j on the columns in <paramref name="basis"/> in the whitened metric: the coefficients and
+    /// the squared cosine between the column and its fit (1 when the basis reproduces it exactly). Rank-deficient bases get the
+    /// minimum-norm coefficients.</summary>
+    public (double[] Coefficients, double CosineSquared) SpanFit(int j, IReadOnlyList<int> basis)
+    {
+        var target = whitened.Column(j);
+        var norm = target.DotProduct(target);
+        if (basis.Count == 0 || norm <= 0)
+        {
+            return (new double[basis.Count], 0);
+        }
+
+        var matrix = Matrix<double>.Build.Dense(whitened.RowCount, basis.Count, (i, k) => whitened[i, basis[k]]);
+        var svd = matrix.Svd(true);
+        var singular = svd.S;
+        var limit = singular.Count > 0 ? singular[0] * 1e-10 : 0;
+        var projected = svd.U.TransposeThisAndMultiply(target);
+        var coefficients = Vector<double>.Build.Dense(basis.Count);
+        for (var k = 0; k < singular.Count; k++)
+        {
+            if (singular[k] > limit)
+            {
+                coefficients += svd.VT.Row(k) * (projected[k] / singular[k]);
+            }
+        }
+
+        var fitted = matrix * coefficients;
+        return (coefficients.ToArray(), Math.Min(1, fitted.DotProduct(fitted) / norm));
+    }
+
     /// <summary>Evidence, χ² and posterior marginals for the prior variances <paramref name="priorVariances"/>.</summary>
     public (double LogEvidence, double ChiSquare, double[] Means, double[] Sds) Evaluate(double[] priorVariances)
     {

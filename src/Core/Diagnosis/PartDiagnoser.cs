@@ -36,7 +36,9 @@ public static class PartDiagnoser
     /// <param name="options">Priors and decision thresholds.</param>
     /// <returns>The outcome, the named parts and the ranked hypotheses.</returns>
     /// <exception cref="ArgumentOutOfRangeException">The covariance is not positive definite, or an option is out of range.</exception>
-    public static DiagnosisResult Diagnose(DiagnosisProblem problem, DiagnosisOptions options)
+    public static DiagnosisResult Diagnose(DiagnosisProblem problem, DiagnosisOptions options) => Diagnose(problem, options, assessCalibration: true);
+
+    private static DiagnosisResult Diagnose(DiagnosisProblem problem, DiagnosisOptions options, bool assessCalibration)
     {
         Preconditions.CheckArgumentRange(nameof(options), options.FaultPriorProbability is > 0 and < 1, "the fault prior probability must lie strictly between 0 and 1");
         Preconditions.CheckArgumentRange(nameof(options), options.MaxFaultsPerHypothesis is >= 0 and <= 3, "at most three parts can be freed at once");
@@ -68,6 +70,27 @@ public static class PartDiagnoser
         }
 
         var (outcome, findings, summary) = Decide(model, problem.Columns, groups, healthy, winner, runnerUp, options, notes);
+        var loose = problem.Columns.Select((column, j) => (column, j))
+            .Where(pair => pair.column.Kind is DiagnosisColumnKind.ChannelGain && !pair.column.PinnedByCalibration && model.IsObservable(pair.j))
+            .Select(pair => pair.j).ToList();
+        if (loose.Count > 0)
+        {
+            var uncalibrated = loose.Where(j => problem.Columns[j].Id != DiagnosisColumn.CommonGainId).ToList();
+            var calibrated = assessCalibration && uncalibrated.Count > 0 ? Diagnose(WithCalibratedGains(problem, winner.Hypothesis, uncalibrated, options), options, assessCalibration: false) : null;
+            if (calibrated is not null)
+            {
+                resolutions = resolutions.Select(r => r with { FreedSdWithCalibration = calibrated.Resolutions.FirstOrDefault(c => c.ColumnId == r.ColumnId)?.FreedSd }).ToList();
+                NoteWhatACalibrationBuys(model, problem.Columns, loose, resolutions, options, notes);
+            }
+
+            findings = findings.Select(finding => WithGainDependence(model, problem.Columns, groups, winner, loose, finding, calibrated, options)).ToList();
+            if (findings.Any(finding => finding.GainDependence?.DependsOnProbeGains == true))
+            {
+                outcome = DiagnosisOutcome.CannotDecide;
+                summary = "Cannot decide: " + string.Join(" ", findings.Select(finding => finding.Sentence));
+            }
+        }
+
         return new DiagnosisResult(outcome, summary, findings, winner.Hypothesis, runnerUp?.Hypothesis, ranked.Select(h => h.Hypothesis).ToList(), partGroups, unobservable, resolutions, nuisance, notes);
     }
 
@@ -183,6 +206,108 @@ public static class PartDiagnoser
         PartVerdict.CannotDecide => "cannot decide, record longer or add a channel",
         _ => "within tolerance",
     };
+
+    /// <summary>Attaches the finding's dependence on the uncalibrated probe gains; a dependent finding becomes "cannot decide" and says what a calibration would give.</summary>
+    private static PartFinding WithGainDependence(
+        LinearGaussianModel model,
+        IReadOnlyList<DiagnosisColumn> columns,
+        IReadOnlyList<ColumnGroup> groups,
+        ScoredHypothesis winner,
+        IReadOnlyList<int> loose,
+        PartFinding finding,
+        DiagnosisResult? calibrated,
+        DiagnosisOptions options)
+    {
+        var j = columns.ToList().FindIndex(column => column.Id == finding.PartId);
+        var group = groups.FirstOrDefault(g => g.Members.Contains(j));
+        if (j < 0 || group is null)
+        {
+            return finding;
+        }
+
+        // Freed in the winner is the group's representative; a member's figures are the representative's scaled by their ratio.
+        var representative = group.Representative;
+        var (coefficients, cosineSquared) = model.SpanFit(representative, loose);
+        var known = columns.Select((column, k) => loose.Contains(k) ? 0 : winner.Freed.Contains(k) ? column.FaultSd * column.FaultSd : column.HealthySd * column.HealthySd).ToArray();
+        var sdKnown = model.Evaluate(known).Sds[representative];
+        var sd = winner.Hypothesis.Posterior[representative].Sd;
+        var share = sd > 0 ? Math.Clamp(1 - (sdKnown * sdKnown / (sd * sd)), 0, 1) : 0;
+        var mean = winner.Hypothesis.Posterior[representative].Mean;
+        var mimicking = cosineSquared >= options.GainMimicCosineSquared
+            ? loose.Select((k, i) => new ChannelGainDeviation(columns[k].Id.StartsWith("gain:", StringComparison.Ordinal) ? columns[k].Id["gain:".Length..] : columns[k].Id, 100 * (Math.Exp(coefficients[i] * mean) - 1)))
+                .Where(gain => Math.Abs(gain.DeviationPercent) >= 0.05).ToList()
+            : [];
+        var depends = mimicking.Count > 0 && share >= options.GainVarianceShare;
+        var ratio = finding.LogDeviationSd > 0 && sd > 0 ? finding.LogDeviationSd / sd : 1;
+        var calibratedSd = calibrated?.Resolutions.FirstOrDefault(r => r.ColumnId == finding.PartId)?.FreedSd ?? finding.LogDeviationSd;
+        var calibratedWinner = calibrated?.Winner ?? winner.Hypothesis;
+        var dependence = new ProbeGainDependence(depends, cosineSquared, share, mimicking, calibrated is null ? finding.LogDeviationSd : calibratedSd, calibratedWinner.Describe(), calibratedWinner.Probability);
+        if (!depends)
+        {
+            return finding with { GainDependence = dependence };
+        }
+
+        var invariant = CultureInfo.InvariantCulture;
+        var isValue = finding.Kind is DiagnosisColumnKind.PartValue;
+        var deviation = isValue ? string.Create(invariant, $"{finding.Deviation:+0.0;-0.0} %") : string.Create(invariant, $"{finding.Deviation:+0.0;-0.0} mV");
+        var gains = string.Join(", ", mimicking.Select(gain => string.Create(invariant, $"{(gain.Channel == "common" ? "every calibrated channel" : gain.Channel)} {gain.DeviationPercent:+0.0;-0.0} %")));
+        var sentence = string.Create(invariant, $"{finding.PartId} {deviation} or probe gains {gains}: this capture cannot tell the part from the probe gains (they carry {100 * share:0} % of its uncertainty).");
+        if (calibrated is not null)
+        {
+            var spread = isValue ? string.Create(invariant, $"± {100 * options.IntervalSigmas * calibratedSd * ratio:0.0} %") : string.Create(invariant, $"± {1000 * options.IntervalSigmas * calibratedSd:0.0} mV");
+            var calibratedGroup = calibrated.Groups.FirstOrDefault(g => g.MemberIds.Contains(finding.PartId));
+            var favoured = calibratedGroup is not null && calibratedWinner.FreedGroups.Contains(calibratedGroup.RepresentativeId)
+                ? $"{finding.PartId} deviating"
+                : calibratedWinner.Describe();
+            sentence += string.Create(invariant, $" Record a calibration capture to decide (every probe on one node, docs/probe-calibration.md): with it {finding.PartId} would be resolved to {spread}, and if the probes read as this capture suggests, the evidence would favour {favoured} (probability {calibratedWinner.Probability:0.00}).");
+        }
+        else
+        {
+            sentence += " Record a calibration capture to decide (every probe on one node, docs/probe-calibration.md).";
+        }
+
+        return finding with { Verdict = PartVerdict.CannotDecide, Sentence = sentence, GainDependence = dependence };
+    }
+
+    /// <summary>The same problem as a calibration capture would leave it: the uncalibrated gains pinned to the calibrated sd around
+    /// the values this capture suggests (the rows corrected by them), and a common gain, the reference probe's own error, at the probe tolerance.</summary>
+    private static DiagnosisProblem WithCalibratedGains(DiagnosisProblem problem, DiagnosisHypothesis winner, IReadOnlyList<int> uncalibrated, DiagnosisOptions options)
+    {
+        var rows = problem.Rows.Select((row, i) => row with { Value = row.Value - uncalibrated.Sum(j => problem.Columns[j].Entries[i] * winner.Posterior[j].Mean) }).ToList();
+        var columns = problem.Columns.Select((column, j) => uncalibrated.Contains(j)
+            ? column with { HealthySd = options.CalibratedGainLogSd, FaultSd = options.CalibratedGainLogSd, PinnedByCalibration = true }
+            : column).ToList();
+        if (columns.All(column => column.Id != DiagnosisColumn.CommonGainId))
+        {
+            var entries = problem.Rows.Select((_, i) => uncalibrated.Sum(j => problem.Columns[j].Entries[i])).ToArray();
+            var sd = uncalibrated.Max(j => problem.Columns[j].HealthySd);
+            columns.Add(DiagnosisColumn.ForChannelGain("common", Math.Exp(2 * sd) - 1, entries, sd) with
+            {
+                Id = DiagnosisColumn.CommonGainId,
+                Label = "the gain every calibrated probe shares (the reference probe's own error)",
+            });
+        }
+
+        return new DiagnosisProblem(rows, columns, problem.Covariance);
+    }
+
+    /// <summary>Names the parts that probe gains can mimic and what a calibration would resolve them to.</summary>
+    private static void NoteWhatACalibrationBuys(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, IReadOnlyList<int> loose, IReadOnlyList<PartResolution> resolutions, DiagnosisOptions options, List<string> notes)
+    {
+        var invariant = CultureInfo.InvariantCulture;
+        var mimicked = columns.Select((column, j) => (column, j))
+            .Where(pair => pair.column.IsFaultCandidate && model.IsObservable(pair.j) && model.SpanFit(pair.j, loose).CosineSquared >= options.GainMimicCosineSquared)
+            .Select(pair => (pair.column, resolution: resolutions.First(r => r.ColumnId == pair.column.Id)))
+            .Where(pair => pair.resolution.FreedSdWithCalibration is { } withCalibration && withCalibration < 0.5 * pair.resolution.FreedSd)
+            .Select(pair => pair.column.Kind is DiagnosisColumnKind.PartValue
+                ? string.Create(invariant, $"{pair.column.Id} ± {100 * options.IntervalSigmas * pair.resolution.FreedSdWithCalibration!.Value:0.0} % (now ± {100 * options.IntervalSigmas * pair.resolution.FreedSd:0.0} %)")
+                : string.Create(invariant, $"{pair.column.Id} ± {1000 * options.IntervalSigmas * pair.resolution.FreedSdWithCalibration!.Value:0.0} mV (now ± {1000 * options.IntervalSigmas * pair.resolution.FreedSd:0.0} mV)"))
+            .ToList();
+        if (mimicked.Count > 0)
+        {
+            notes.Add("Uncalibrated probe gains can mimic " + string.Join(", ", mimicked.Select(m => m.Split(' ')[0])) + ". A calibration capture (every probe on one node) would resolve them to " + string.Join(", ", mimicked) + ".");
+        }
+    }
 
     private static bool NamesOtherParts(IReadOnlyList<int> candidate, IReadOnlyList<int> winner) =>
         !candidate.All(winner.Contains) && !winner.All(candidate.Contains);

@@ -1,3 +1,5 @@
+using Patchproof.Core.Captures.Calibration;
+
 namespace Patchproof.Core.Reports;
 
 /// <summary>Settings of a board fit.</summary>
@@ -11,6 +13,14 @@ public sealed record BoardFitOptions
 
     /// <summary>Per-channel log-gain sd from a calibration capture, overriding <see cref="ProbeGainTolerance"/> for those channels.</summary>
     public IReadOnlyDictionary<string, double> CalibratedGainSd { get; init; } = new Dictionary<string, double>();
+
+    /// <summary>A probe calibration (every probe on one node) of the scope and probes that recorded the capture; null for none.
+    /// Its relative gains divide the channels it names, and their priors shrink from the probe tolerance to the calibration's.</summary>
+    public ProbeCalibration? Calibration { get; init; }
+
+    /// <summary>Log-gain sd added to a calibrated channel's own, for what the calibration capture cannot see: gain drift between the
+    /// two recordings and the probe's flatness over the board's band. Default 0.002 (0.2 %, from memory).</summary>
+    public double CalibrationTransferSd { get; init; } = 0.002;
 
     /// <summary>Shooting segment length in problem time units; 0.5 suits Lorenz-type boards (about half a Lyapunov time).</summary>
     public double SegmentProblemUnits { get; init; } = 0.5;

@@ -91,14 +91,14 @@ public static class BoardFitter
             hasConstant.Select(has => !has).ToList());
         var nominal = terms.Select(t => t.NominalCoefficient).Concat(field.OffsetEquations.Select(_ => 0.0)).ToArray();
 
+        var gains = ProbeGainPriors.For(options, channelIndex.Select(c => c.Channel.Name));
         var shootingChannels = channelIndex.Select(entry =>
         {
             var samples = entry.Channel.Samples.Span.ToArray().Select(v => (double)v).ToArray();
             var clipLevels = clipped.Where(check => check.Channel == entry.Channel.Name).Select(check => check.Values["levelVolts"]).ToList();
             var excluded = samples.Select(v => clipLevels.Any(level => Math.Abs(v - level) <= 1e-6 * Math.Max(1, Math.Abs(level)))).ToArray();
-            var gainSd = options.CalibratedGainSd.TryGetValue(entry.Channel.Name, out var calibrated) ? calibrated : Math.Log(1 + options.ProbeGainTolerance) / 2;
-            // Gains stay at their nominal values in the fit; the diagnosis carries them as nuisance columns with their prior.
-            return new ShootingChannel(entry.Channel.Name, entry.State, entry.Assignment.Sign, NoiseSd(samples), samples)
+            // Gains stay at their assumed values in the fit; the diagnosis carries them as nuisance columns with their prior.
+            return new ShootingChannel(entry.Channel.Name, entry.State, entry.Assignment.Sign * gains.GainOf(entry.Channel.Name), NoiseSd(samples), samples)
             {
                 Excluded = excluded.Any(x => x) ? excluded : null,
             };
@@ -161,8 +161,7 @@ public static class BoardFitter
 
         Report(options, 0.97, "part diagnosis");
         var channelOfVariable = channelIndex.ToDictionary(c => c.Assignment.Variable, c => c.Channel.Name);
-        var gainSds = channelIndex.ToDictionary(c => c.Channel.Name, c => options.CalibratedGainSd.TryGetValue(c.Channel.Name, out var sd) ? sd : Math.Log(1 + options.ProbeGainTolerance) / 2);
-        var diagnosisProblem = DesignDiagnosisBuilder.Build(design, terms, field, fit, channelOfVariable, gainSds);
+        var diagnosisProblem = DesignDiagnosisBuilder.Build(design, terms, field, fit, channelOfVariable, gains.LogSds, gains.CalibratedChannels, gains.CommonLogSd);
         var diagnosis = PartDiagnoser.Diagnose(diagnosisProblem);
         if (diagnosis.Outcome is DiagnosisOutcome.NoExplanationFits)
         {
@@ -181,8 +180,7 @@ public static class BoardFitter
             Coefficients(design, terms, fit, observed.Keys.Select(j => variables[j]).ToHashSet()),
             Offsets(design, field, fit, variables),
             channelIndex.Select((entry, c) => new ChannelCorrection(entry.Channel.Name, entry.Assignment.Variable, entry.Assignment.Sign,
-                fit.ChannelOffsetsVolts[c], fit.ChannelOffsetStandardErrors[c], fit.ChannelGains[c], fit.ChannelGainStandardErrors[c],
-                options.CalibratedGainSd.ContainsKey(entry.Channel.Name) ? "calibration (in the diagnosis)" : $"probe tolerance {options.ProbeGainTolerance * 100:0.#} % (in the diagnosis)",
+                fit.ChannelOffsetsVolts[c], fit.ChannelOffsetStandardErrors[c], fit.ChannelGains[c], Math.Abs(fit.ChannelGains[c]) * gains.LogSdOf(entry.Channel.Name), gains.SourceOf(entry.Channel.Name),
                 fit.ResidualRmsVolts[c])).ToList(),
             TimeConstants(design, diagnosis),
             new FitQuality("multiple shooting", fit.SegmentStates.Count, segmentSeconds, fit.Iterations, fit.ExitReason.ToString(), fit.Converged, fit.VarianceInflation, hiddenNotes, stopwatch.Elapsed.TotalSeconds),

@@ -86,9 +86,9 @@ public sealed record OffsetEstimate(string Equation, double VoltsPerSecond, doub
 /// <param name="Sign">The mapping's sign.</param>
 /// <param name="OffsetVolts">Its fitted offset.</param>
 /// <param name="OffsetStandardError">Its standard error.</param>
-/// <param name="Gain">Its gain (signed) as fitted or assumed.</param>
-/// <param name="GainStandardError">Its standard error (0 when assumed).</param>
-/// <param name="GainSource">Where the gain prior came from: "probe tolerance 2 %", "calibration", "fixed".</param>
+/// <param name="Gain">The gain (signed) the fit assumed: the mapping's sign times the calibrated relative gain, or times 1.</param>
+/// <param name="GainStandardError">The prior sd the diagnosis gave that gain, in the gain's units.</param>
+/// <param name="GainSource">Where the gain and its prior came from: a calibration, a stated prior, or the probe tolerance.</param>
 /// <param name="ResidualRmsVolts">RMS misfit of the fitted model to this channel.</param>
 public sealed record ChannelCorrection(string Channel, string Variable, int Sign, double OffsetVolts, double OffsetStandardError, double Gain, double GainStandardError, string GainSource, double ResidualRmsVolts);
 

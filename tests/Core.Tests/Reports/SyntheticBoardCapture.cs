@@ -15,7 +15,42 @@ internal static class SyntheticBoardCapture
     public static BoardDesign LoadDesign(string file) =>
         DesignFileReader.ReadFile(Path.Combine(ReferenceDataFiles.RepositoryRoot, "designs", file)).Value;
 
-    public static Capture Simulate(BoardDesign asBuilt, int seed, double problemUnits = 20, double[]? channelOffsetsVolts = null, int[]? recorded = null)
+    public static Capture Simulate(BoardDesign asBuilt, int seed, double problemUnits = 20, double[]? channelOffsetsVolts = null, int[]? recorded = null, double[]? probeGains = null)
+    {
+        var (run, dt, count) = Trace(asBuilt, problemUnits);
+        var random = new Random(seed);
+        var channels = new List<CaptureChannel>();
+        foreach (var j in recorded ?? Enumerable.Range(0, asBuilt.Variables.Count()).ToArray())
+        {
+            var clean = Enumerable.Range(0, count).Select(i => ((probeGains?[j] ?? 1) * run.StateAt(i)[j]) + (channelOffsetsVolts?[j] ?? 0)).ToArray();
+            var mean = clean.Average();
+            var sd = Math.Sqrt(clean.Sum(v => (v - mean) * (v - mean)) / count);
+            var window = 1.1 * clean.Max(Math.Abs);
+            var step = 2 * window / 256;
+            var samples = clean.Select(v => (float)(Math.Round((v + 0.005 * sd * GaussianNoise.Next(random)) / step) * step)).ToArray();
+            channels.Add(new CaptureChannel($"CH{j + 1}", "V", samples, "synthetic.csv", j + 2));
+        }
+
+        return new Capture(new UniformTimeBase(0, dt, count), channels, []);
+    }
+
+    /// <summary>A calibration capture of the same board: every channel on one node (state <paramref name="node"/>) through its probe
+    /// gain, all channels at one volts/div (one 8-bit window), noise of 0.5 % of the node's SD.</summary>
+    public static Capture SimulateCalibration(BoardDesign asBuilt, int seed, double[] probeGains, int node = 0, double problemUnits = 5)
+    {
+        var (run, dt, count) = Trace(asBuilt, problemUnits);
+        var random = new Random(seed);
+        var clean = Enumerable.Range(0, count).Select(i => run.StateAt(i)[node]).ToArray();
+        var mean = clean.Average();
+        var sd = Math.Sqrt(clean.Sum(v => (v - mean) * (v - mean)) / count);
+        var window = 1.15 * clean.Max(Math.Abs) * probeGains.Max();
+        var step = 2 * window / 256;
+        var channels = probeGains.Select((gain, c) => new CaptureChannel($"CH{c + 1}", "V",
+            clean.Select(v => (float)(Math.Round(((gain * v) + (0.005 * sd * GaussianNoise.Next(random))) / step) * step)).ToArray(), "calibration.csv", c + 2)).ToList();
+        return new Capture(new UniformTimeBase(0, dt, count), channels, []);
+    }
+
+    private static (OdeSolution Run, double IntervalSeconds, int Count) Trace(BoardDesign asBuilt, double problemUnits)
     {
         var variables = asBuilt.Variables.Select(v => v.Name).ToList();
         var terms = asBuilt.Terms();
@@ -32,20 +67,7 @@ internal static class SyntheticBoardCapture
         var times = Enumerable.Range(0, count).Select(i => 10 * tau + i * dt).ToImmutableArray();
         var run = OdeSolver.Solve(new OdeProblem(field, [.. transient.FinalState.ToArray()], 10 * tau, times[^1], parameters),
             new DormandPrince45 { RelativeTolerance = 1e-10, AbsoluteTolerance = 1e-10, SampleTimes = times });
-        var random = new Random(seed);
-        var channels = new List<CaptureChannel>();
-        foreach (var j in recorded ?? Enumerable.Range(0, variables.Count).ToArray())
-        {
-            var clean = Enumerable.Range(0, count).Select(i => run.StateAt(i)[j] + (channelOffsetsVolts?[j] ?? 0)).ToArray();
-            var mean = clean.Average();
-            var sd = Math.Sqrt(clean.Sum(v => (v - mean) * (v - mean)) / count);
-            var window = 1.1 * clean.Max(Math.Abs);
-            var step = 2 * window / 256;
-            var samples = clean.Select(v => (float)(Math.Round((v + 0.005 * sd * GaussianNoise.Next(random)) / step) * step)).ToArray();
-            channels.Add(new CaptureChannel($"CH{j + 1}", "V", samples, "synthetic.csv", j + 2));
-        }
-
-        return new Capture(new UniformTimeBase(0, dt, count), channels, []);
+        return (run, dt, count);
     }
 
 }

@@ -1,0 +1,62 @@
+using System.Globalization;
+
+namespace Patchproof.Core.Reports;
+
+/// <summary>The gain a fit assumes for each channel and the prior the diagnosis gives it: from a calibration, a stated sd, or the probe tolerance.</summary>
+/// <remarks>
+/// <para>Calibrated channel c: gain g_c from the calibration (its reading per volt of the reference channel's), log-sd
+/// √(sd_c² + transfer²). The calibrated channels also share the reference probe's own error, a common column at the probe
+/// tolerance. Otherwise: gain 1, log-sd from <see cref="BoardFitOptions.CalibratedGainSd"/> when given, else ln(1 + tolerance) / 2.</para>
+/// <para>The shooting fit keeps each gain at the value assumed here: in a fully recorded fit a gain trades exactly against the
+/// coefficients it touches, so it is carried once, as a nuisance column of the diagnosis.</para>
+/// </remarks>
+internal sealed class ProbeGainPriors
+{
+    private readonly Dictionary<string, (double Gain, double LogSd, string Source, bool Calibrated)> channels = new(StringComparer.OrdinalIgnoreCase);
+
+    private ProbeGainPriors(double commonLogSd) => CommonLogSd = commonLogSd;
+
+    /// <summary>The log-sd of the gain every calibrated channel shares; the probe tolerance's.</summary>
+    public double CommonLogSd { get; }
+
+    /// <summary>Channels whose gain came from the calibration.</summary>
+    public IReadOnlyCollection<string> CalibratedChannels => channels.Where(pair => pair.Value.Calibrated).Select(pair => pair.Key).ToList();
+
+    /// <summary>Each channel's log-gain prior sd.</summary>
+    public IReadOnlyDictionary<string, double> LogSds => channels.ToDictionary(pair => pair.Key, pair => pair.Value.LogSd, StringComparer.OrdinalIgnoreCase);
+
+    public static ProbeGainPriors For(BoardFitOptions options, IEnumerable<string> channelNames)
+    {
+        var tolerance = Math.Log(1 + options.ProbeGainTolerance) / 2;
+        var priors = new ProbeGainPriors(tolerance);
+        var invariant = CultureInfo.InvariantCulture;
+        foreach (var name in channelNames)
+        {
+            if (options.Calibration?.Find(name) is { } calibrated)
+            {
+                var sd = Math.Sqrt((calibrated.LogGainSd * calibrated.LogGainSd) + (options.CalibrationTransferSd * options.CalibrationTransferSd));
+                var source = string.Create(invariant, $"calibration against {options.Calibration.ReferenceChannel} ({options.Calibration.CreatedAt:yyyy-MM-dd}), ± {100 * sd:0.00} %; the shared reference probe at its {100 * options.ProbeGainTolerance:0.#} % tolerance");
+                priors.channels[name] = (calibrated.Gain, sd, source, true);
+            }
+            else if (options.CalibratedGainSd.TryGetValue(name, out var given))
+            {
+                priors.channels[name] = (1, given, string.Create(invariant, $"stated prior ± {100 * given:0.00} %"), false);
+            }
+            else
+            {
+                priors.channels[name] = (1, tolerance, string.Create(invariant, $"probe tolerance {100 * options.ProbeGainTolerance:0.#} %, ± {100 * tolerance:0.00} %"), false);
+            }
+        }
+
+        return priors;
+    }
+
+    /// <summary>The gain the fit divides the channel by (1 when uncalibrated).</summary>
+    public double GainOf(string channel) => channels[channel].Gain;
+
+    /// <summary>The gain's log-sd.</summary>
+    public double LogSdOf(string channel) => channels[channel].LogSd;
+
+    /// <summary>Where the gain and its prior came from, in words.</summary>
+    public string SourceOf(string channel) => channels[channel].Source;
+}

@@ -1,0 +1,119 @@
+using Microsoft.Extensions.Time.Testing;
+using Patchproof.Core.Captures.Calibration;
+using Patchproof.Core.Circuits;
+using Patchproof.Core.Diagnosis;
+using Patchproof.Core.Reports;
+
+namespace Patchproof.Core.Tests.Reports;
+
+/// <summary>Probe gains against multiplier faults on the Lorenz board QH-L3: its products pass only through multipliers, so a
+/// multiplier's scale and the probe gains trade against each other exactly (ESTIMATION.md section 5) and only a calibration
+/// capture separates them. Probe gains off by up to 2 % are common practice for ordinary 10x probes.</summary>
+public sealed class BoardFitterCalibrationTests
+{
+    private static readonly FakeTimeProvider Clock = new(new DateTimeOffset(2026, 12, 1, 12, 0, 0, TimeSpan.Zero));
+
+    // +2 % on x and y, -2 % on z: the x·y term reads 6 % low through the probes alone, on top of the fault.
+    private static readonly double[] ProbeGains = [1.02, 1.02, 0.98];
+
+    [Fact]
+    public void Fit_MultiplierSixPercentLowWithoutCalibration_SaysTheFindingDependsOnTheProbeGains()
+    {
+        var (design, asBuilt, _) = BoardWithLowMultiplier();
+        var capture = SyntheticBoardCapture.Simulate(asBuilt, seed: 21, probeGains: ProbeGains);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions(), Clock).Value;
+
+        Assert.NotEqual(DiagnosisOutcome.PartsNamed, report.Diagnosis.Outcome);
+        Assert.DoesNotContain(report.Diagnosis.Findings, f => f.Verdict is PartVerdict.OutOfTolerance or PartVerdict.Drifted);
+        var finding = Assert.Single(report.Diagnosis.Findings, f => f.GainDependence?.DependsOnProbeGains == true);
+        Assert.Contains(finding.PartId, new[] { "M2", "R6" });
+        Assert.Contains("or probe gains", finding.Sentence, StringComparison.Ordinal);
+        Assert.Contains("Record a calibration capture", finding.Sentence, StringComparison.Ordinal);
+        Assert.Contains("calibration capture", report.Diagnosis.Summary, StringComparison.Ordinal);
+        // What a calibration buys here is bounded by the reference probe's own gain error, which it cannot measure (about 0.6 of the sd).
+        Assert.True(finding.GainDependence!.CalibratedSd < 0.75 * finding.LogDeviationSd, $"calibrated sd {finding.GainDependence.CalibratedSd} against {finding.LogDeviationSd}");
+        Assert.Contains($"favour {finding.PartId} deviating", finding.Sentence, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_MultiplierSixPercentLowWithCalibrationCapture_NamesTheMultiplierWithinItsStatedInterval()
+    {
+        var (design, asBuilt, multiplier) = BoardWithLowMultiplier();
+        var capture = SyntheticBoardCapture.Simulate(asBuilt, seed: 22, probeGains: ProbeGains);
+        var calibration = Calibrate(asBuilt, seed: 23);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions { Calibration = calibration }, Clock).Value;
+
+        Assert.Equal(DiagnosisOutcome.PartsNamed, report.Diagnosis.Outcome);
+        var finding = Assert.Single(report.Diagnosis.Findings);
+        Assert.Equal(multiplier, finding.PartId);
+        var effective = 0.94 * design.NominalOf(multiplier);
+        Assert.InRange(effective, finding.LowerValue, finding.UpperValue);
+        // The bar: the effective scale within 1 %.
+        Assert.InRange(finding.EffectiveValue / effective, 0.99, 1.01);
+        Assert.False(finding.GainDependence?.DependsOnProbeGains ?? false);
+    }
+
+    [Fact]
+    public void Fit_HealthyBoardWithTwoPercentProbeErrors_NamesNoPartWithOrWithoutCalibration()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 24, probeGains: ProbeGains);
+        var calibration = Calibrate(design, seed: 25);
+
+        var without = BoardFitter.Fit(design, capture, new BoardFitOptions(), Clock).Value;
+        var with = BoardFitter.Fit(design, capture, new BoardFitOptions { Calibration = calibration }, Clock).Value;
+
+        Assert.DoesNotContain(without.Diagnosis.Findings, f => f.Verdict is PartVerdict.OutOfTolerance or PartVerdict.Drifted);
+        Assert.NotEqual(DiagnosisOutcome.PartsNamed, without.Diagnosis.Outcome);
+        Assert.Equal(DiagnosisOutcome.WithinTolerance, with.Diagnosis.Outcome);
+        Assert.Empty(with.Diagnosis.Findings);
+    }
+
+    [Fact]
+    public void Fit_WithCalibration_ReportsTheGainsItAssumedAndWhereTheyCameFrom()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 26, problemUnits: 6, probeGains: ProbeGains);
+        var calibration = Calibrate(design, seed: 27);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions { Calibration = calibration }, Clock).Value;
+
+        for (var c = 0; c < 3; c++)
+        {
+            var channel = report.Channels[c];
+            Assert.Equal(ProbeGains[c] / ProbeGains[0], channel.Gain, 1e-3);
+            Assert.StartsWith("calibration against CH1", channel.GainSource, StringComparison.Ordinal);
+            Assert.InRange(channel.GainStandardError, 0.001, 0.005);
+        }
+
+        Assert.Contains(report.Diagnosis.Nuisance, n => n.ColumnId == DiagnosisColumn.CommonGainId);
+    }
+
+    [Fact]
+    public void Fit_WithoutCalibration_ReportsTheProbeToleranceAsTheGainSource()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 28, problemUnits: 6);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions(), Clock).Value;
+
+        Assert.All(report.Channels, channel => Assert.StartsWith("probe tolerance 2 %", channel.GainSource, StringComparison.Ordinal));
+        Assert.All(report.Channels, channel => Assert.Equal(Math.Log(1.02) / 2, channel.GainStandardError, 1e-9));
+    }
+
+    private static (BoardDesign Design, BoardDesign AsBuilt, string Multiplier) BoardWithLowMultiplier()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var multiplier = design.Blocks.OfType<MultiplierBlock>().Single(m => m.Output == "-xy").PartId;
+        return (design, design.WithPartValues(new Dictionary<string, double> { [multiplier] = 0.94 * design.NominalOf(multiplier) }), multiplier);
+    }
+
+    private static ProbeCalibration Calibrate(BoardDesign asBuilt, int seed)
+    {
+        var result = ProbeCalibrator.Calibrate(SyntheticBoardCapture.SimulateCalibration(asBuilt, seed, ProbeGains), ["calibration.csv"], Clock);
+        Assert.True(result.IsUsable, string.Join(" ", result.Findings));
+        return result.Calibration!;
+    }
+}
