@@ -12,5 +12,6 @@ internal static class CliVerbs
         yield return Verbs.InspectVerb.Create(console);
         yield return Verbs.SimulateVerb.Create(console);
         yield return Verbs.FitVerb.Create(console);
+        yield return Verbs.CalibrateVerb.Create(console);
     }
 }

@@ -1,13 +1,14 @@
 using System.CommandLine;
 using System.Globalization;
 using Patchproof.Core.Captures;
+using Patchproof.Core.Captures.Calibration;
 using Patchproof.Core.Circuits.Files;
 using Patchproof.Core.Diagnosis;
 using Patchproof.Core.Reports;
 
 namespace Patchproof.Cli.Verbs;
 
-/// <summary><c>patchproof fit --design D CAPTURE... [--map CH1=x,CH2=-y] [--json OUT]</c>: which part drifted, and how sure.</summary>
+/// <summary><c>patchproof fit --design D CAPTURE... [--map CH1=x,CH2=-y] [--calibration FILE] [--json OUT]</c>: which part drifted, and how sure.</summary>
 internal static class FitVerb
 {
     /// <summary>Exit code when the fit ran but warnings make its findings unsafe.</summary>
@@ -19,18 +20,20 @@ internal static class FitVerb
         var files = new Argument<string[]>("captures") { Description = "The capture: one CSV with every channel, or one CSV per channel.", Arity = ArgumentArity.OneOrMore };
         var map = new Option<string?>("--map") { Description = "Which channel records which variable, with sign: CH1=x,CH2=-y,CH3=z. Default: the channels in order." };
         var probeTolerance = new Option<double>("--probe-tolerance") { Description = "Probe gain tolerance in percent when no calibration is given.", DefaultValueFactory = _ => 2.0 };
+        var calibration = new Option<string?>("--calibration") { Description = "A probe calibration file from calibrate (docs/probe-calibration.md): its gains replace the probe tolerance for the channels it names." };
         var json = new Option<string?>("--json") { Description = "Also write the versioned JSON report (docs/fit-report.md) to this file." };
         var command = new Command("fit", "Fit the board's design to a capture: effective coefficients, offsets and time constants, and the part that drifted.");
         command.Options.Add(design);
         command.Arguments.Add(files);
         command.Options.Add(map);
         command.Options.Add(probeTolerance);
+        command.Options.Add(calibration);
         command.Options.Add(json);
-        command.SetAction(parse => Run(console, parse.GetValue(design)!, parse.GetValue(files) ?? [], parse.GetValue(map), parse.GetValue(probeTolerance), parse.GetValue(json)));
+        command.SetAction(parse => Run(console, parse.GetValue(design)!, parse.GetValue(files) ?? [], parse.GetValue(map), parse.GetValue(probeTolerance), parse.GetValue(calibration), parse.GetValue(json)));
         return command;
     }
 
-    private static int Run(CliConsole console, string designPath, string[] files, string? map, double probeTolerancePercent, string? jsonPath)
+    private static int Run(CliConsole console, string designPath, string[] files, string? map, double probeTolerancePercent, string? calibrationPath, string? jsonPath)
     {
         var designResult = DesignFileReader.ReadFile(designPath);
         if (!designResult.TryGetValue(out var design))
@@ -62,7 +65,28 @@ internal static class FitVerb
             return PatchproofCommandLine.BadInput;
         }
 
-        var options = new BoardFitOptions { Mapping = mapping, ProbeGainTolerance = probeTolerancePercent / 100 };
+        ProbeCalibration? calibration = null;
+        if (calibrationPath is not null)
+        {
+            var calibrationResult = ProbeCalibrationFile.ReadFile(calibrationPath);
+            if (!calibrationResult.TryGetValue(out calibration))
+            {
+                return Fail(console, calibrationResult.Errors);
+            }
+
+            foreach (var warning in calibrationResult.Warnings)
+            {
+                console.Error.WriteLine(warning.ToString());
+            }
+
+            if (!capture.Channels.Any(channel => calibration.Find(channel.Name) is not null))
+            {
+                console.Error.WriteLine($"{calibrationPath}:0:0: the calibration names {string.Join(", ", calibration.Channels.Select(c => c.Channel))}, none of the capture's channels ({string.Join(", ", capture.Channels.Select(c => c.Name))})");
+                return PatchproofCommandLine.BadInput;
+            }
+        }
+
+        var options = new BoardFitOptions { Mapping = mapping, ProbeGainTolerance = probeTolerancePercent / 100, Calibration = calibration };
         var fitResult = BoardFitter.Fit(design, capture, options, TimeProvider.System);
         if (!fitResult.TryGetValue(out var report))
         {
@@ -118,7 +142,7 @@ internal static class FitVerb
 
         foreach (var channel in report.Channels)
         {
-            output.WriteLine(string.Create(invariant, $"  {channel.Channel} = {(channel.Sign < 0 ? "-" : "")}{channel.Variable}: offset {1000 * channel.OffsetVolts:+0.0;-0.0} mV, residual {1000 * channel.ResidualRmsVolts:0.0} mV rms, gain from {channel.GainSource}"));
+            output.WriteLine(string.Create(invariant, $"  {channel.Channel} = {(channel.Sign < 0 ? "-" : "")}{channel.Variable}: offset {1000 * channel.OffsetVolts:+0.0;-0.0} mV, residual {1000 * channel.ResidualRmsVolts:0.0} mV rms, gain {Math.Abs(channel.Gain):0.0000} from {channel.GainSource}"));
         }
 
         foreach (var timeConstant in report.TimeConstants)
