@@ -157,6 +157,11 @@ internal static class FitVerb
         {
             output.WriteLine("Unrecorded variables: " + string.Join(", ", q.HiddenVariables) + ".");
         }
+
+        if (report.Comparison is { } comparison)
+        {
+            FitComparisonSummary.Print(output, comparison);
+        }
     }
 
     private static int Fail(CliConsole console, IReadOnlyList<Patchproof.Core.SourceDiagnostic> errors)

@@ -17,6 +17,9 @@ public sealed record PredictabilityOptions
 
     /// <summary>Relative and absolute tolerance of the restarted solves (default 1e-8).</summary>
     public double Tolerance { get; init; } = 1e-8;
+
+    /// <summary>The state variables the deviation is taken over; null for all. A record whose hidden states were reconstructed scores only the recorded ones.</summary>
+    public IReadOnlyList<int>? ScoredStates { get; init; }
 }
 
 /// <summary>How long simulations restarted from the record's state stay within the band around it.</summary>
@@ -73,6 +76,8 @@ public static class PredictabilityHorizon
         var horizonSamples = (int)Math.Ceiling(options.MaximumHorizon / sampleInterval) + 1;
         var n = reference[0].Length;
         Preconditions.CheckArgumentRange(nameof(reference), n > horizonSamples, "is shorter than the maximum horizon");
+        var scored = options.ScoredStates is { } chosen ? chosen.ToArray() : [.. Enumerable.Range(0, system.StateCount)];
+        Preconditions.CheckArgumentRange(nameof(options), scored.Length > 0 && scored.All(c => c >= 0 && c < system.StateCount), "the scored states must be valid state indices, at least one");
         var deviations = RestartedSimulation.StandardDeviations(reference);
         var parameterArray = parameters.ToArray().ToImmutableArray();
         var restarts = options.Restarts;
@@ -90,13 +95,13 @@ public static class PredictabilityHorizon
             for (var j = 0; j < reached && exit < 0; j++)
             {
                 var sum = 0.0;
-                for (var c = 0; c < simulated.Length; c++)
+                foreach (var c in scored)
                 {
                     var e = (simulated[c][j] - reference[c][start + j]) / deviations[c];
                     sum += e * e;
                 }
 
-                if (Math.Sqrt(sum / simulated.Length) > options.BandStandardDeviations || !double.IsFinite(sum))
+                if (Math.Sqrt(sum / scored.Length) > options.BandStandardDeviations || !double.IsFinite(sum))
                 {
                     exit = j;
                 }

@@ -39,6 +39,12 @@ public sealed record BoardFitOptions
 
     /// <summary>Checked between stages and between iterations: once cancelled, the fit stops with <see cref="OperationCanceledException"/>. Default none.</summary>
     public CancellationToken Cancellation { get; init; }
+
+    /// <summary>True (the default) to add the comparison of invariants and overlays to the report; false for the diagnosis alone.</summary>
+    public bool CompareInvariants { get; init; } = true;
+
+    /// <summary>Settings of that comparison.</summary>
+    public FitComparisonOptions Comparison { get; init; } = new();
 }
 
 /// <summary>How far a board fit has come.</summary>

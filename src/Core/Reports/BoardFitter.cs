@@ -189,6 +189,12 @@ public static class BoardFitter
             StructureCheck = structure,
             MappingCheck = mappingCheck,
         };
+        if (options.CompareInvariants)
+        {
+            Report(options, 0.96, "comparing the capture with the designs");
+            report = report with { Comparison = FitComparisonBuilder.Build(design, capture, report, options.Comparison) };
+        }
+
         Report(options, 1, "done");
         return ParseResult<FitReport>.ForValue(report);
     }

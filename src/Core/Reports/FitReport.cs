@@ -48,6 +48,9 @@ public sealed record FitReport(
     /// <summary>Whether another reading of the channels fits the capture far better than the one used.</summary>
     public MappingCheck MappingCheck { get; init; } = MappingCheck.NotPerformed("not run");
 
+    /// <summary>The capture compared with the nominal and fitted design on invariants that survive chaos, with the plot data behind them; null when the fit was asked not to compare (<see cref="BoardFitOptions.CompareInvariants"/>).</summary>
+    public FitComparison? Comparison { get; init; }
+
     /// <summary>True when nothing makes the findings unsafe.</summary>
     public bool FindingsAreSafe => Warnings.Count == 0;
 }
