@@ -191,7 +191,7 @@ public static class BoardFitter
         };
         if (options.CompareInvariants)
         {
-            Report(options, 0.96, "comparing the capture with the designs");
+            Report(options, 0.98, "comparing the capture with the designs");
             report = report with { Comparison = FitComparisonBuilder.Build(design, capture, report, options.Comparison) };
         }
 
