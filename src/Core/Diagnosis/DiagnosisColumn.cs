@@ -76,7 +76,7 @@ public sealed record DiagnosisColumn
     /// <summary>A part value (resistor, capacitor, multiplier scale) with its relative tolerance.</summary>
     /// <param name="id">The part id, for example <c>R5</c>.</param>
     /// <param name="label">What a person reads.</param>
-    /// <param name="nominalValue">The nominal value in <paramref name="unit"/>; positive.</param>
+    /// <param name="nominalValue">The nominal value in <paramref name="unit"/>; non-zero, negative only for a reference voltage.</param>
     /// <param name="unit">The unit, for example "Ω".</param>
     /// <param name="relativeTolerance">The tolerance as a fraction, for example 0.01 for 1 %; positive.</param>
     /// <param name="entries">The part's log-exponent in each row.</param>
@@ -84,7 +84,7 @@ public sealed record DiagnosisColumn
     public static DiagnosisColumn ForPartValue(string id, string label, double nominalValue, string unit, double relativeTolerance, IReadOnlyList<double> entries, double plausibleFactor = 3.5)
     {
         Preconditions.CheckArgumentRange(nameof(relativeTolerance), relativeTolerance > 0 && double.IsFinite(relativeTolerance), "must be a positive fraction");
-        Preconditions.CheckArgumentRange(nameof(nominalValue), nominalValue > 0 && double.IsFinite(nominalValue), "must be positive");
+        Preconditions.CheckArgumentRange(nameof(nominalValue), nominalValue != 0 && double.IsFinite(nominalValue), "must be non-zero (negative for a negative reference voltage)");
         var band = Math.Log(1 + relativeTolerance);
         return new DiagnosisColumn
         {

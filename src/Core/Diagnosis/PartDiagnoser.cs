@@ -189,8 +189,9 @@ public static class PartDiagnoser
             : PartVerdict.WithinTolerance;
         var isValue = column.Kind is DiagnosisColumnKind.PartValue;
         var effective = isValue ? column.NominalValue * Math.Exp(mean) : mean;
-        var lower = isValue ? column.NominalValue * Math.Exp(mean - k * sd) : mean - k * sd;
-        var upper = isValue ? column.NominalValue * Math.Exp(mean + k * sd) : mean + k * sd;
+        var (first, second) = isValue ? (column.NominalValue * Math.Exp(mean - k * sd), column.NominalValue * Math.Exp(mean + k * sd)) : (mean - k * sd, mean + k * sd);
+        // A negative reference voltage turns the interval around.
+        var (lower, upper) = (Math.Min(first, second), Math.Max(first, second));
         var deviation = isValue ? 100 * (Math.Exp(mean) - 1) : 1000 * mean;
         var also = alternatives.Count == 0 ? "" : " This capture cannot tell it from " + string.Join(", ", alternatives.Select(a => a.Kind is DiagnosisColumnKind.PartValue ? $"{a.PartId} ({a.Deviation:+0.0;-0.0} %)" : $"{a.PartId} ({a.Deviation:+0.0;-0.0} mV)")) + ".";
         var sentence = isValue
