@@ -136,7 +136,11 @@ public static class BoardFitter
         Report(options, 0.1, "multiple shooting");
         var shooting = new MultipleShootingOptions { SegmentSeconds = segmentSeconds, ParameterPriors = priors, ChannelOffsetPriorSdVolts = options.ChannelOffsetPriorSdVolts };
         shooting = shooting with { Solver = shooting.Solver with { Progress = IterationProgress(options), Cancellation = options.Cancellation } };
-        var fit = MultipleShootingEstimator.Fit(field, nominal, shootingChannels, 0, timeBase.IntervalSeconds, shooting, guess);
+        var start = hidden.Count > 0 ? null : EquationErrorStartOf(design, field, shootingChannels, timeBase.IntervalSeconds);
+        var fit = start is null
+            ? MultipleShootingEstimator.Fit(field, nominal, shootingChannels, 0, timeBase.IntervalSeconds, shooting, guess)
+            : MultipleShootingEstimator.Fit(field, start.Parameters, shootingChannels, 0, timeBase.IntervalSeconds, shooting, guess,
+                shootingChannels.Select(c => start.StateOffsets[c.StateIndex] * c.NominalGain).ToList());
         if (!fit.Converged)
         {
             warnings.Add($"The fit stopped before converging ({fit.ExitReason}); treat its numbers as rough.");
@@ -208,6 +212,27 @@ public static class BoardFitter
     // Iterations fill 0.1 to 0.95 of the bar against the cap.
     private static IterationReporter? IterationProgress(BoardFitOptions options) =>
         options.Progress is { } outer ? new IterationReporter(outer) : null;
+
+    /// <summary>Equation-error starting values (coefficients, offsets, channel offsets in closed form) for a fully recorded board.</summary>
+    /// <remarks>Null when the regression cannot run or explains less than 90 % of some derivative: then the shooting starts from the nominal design.</remarks>
+    private static EquationErrorStartResult? EquationErrorStartOf(BoardDesign design, PolynomialVectorField field, List<ShootingChannel> channels, double intervalSeconds)
+    {
+        var states = new double[field.StateCount][];
+        var excluded = new bool[channels[0].Samples.Count];
+        foreach (var channel in channels)
+        {
+            states[channel.StateIndex] = channel.Samples.Select(v => v / channel.NominalGain).ToArray();
+            for (var i = 0; i < excluded.Length && channel.Excluded is { } mask; i++)
+            {
+                excluded[i] |= mask[i];
+            }
+        }
+
+        var tau = design.TimeScaleSeconds;
+        var options = new EquationErrorOptions { MaxWindowDuration = 0.05 * tau, BatchDuration = tau, Excluded = excluded };
+        var start = EquationErrorStart.TryEstimate(field, states, intervalSeconds, options);
+        return start is not null && start.RSquared.All(r => r >= 0.9) ? start : null;
+    }
 
     /// <summary>The mapping check over the recorded channels, in problem time units, with the structure check's filter.</summary>
     private static MappingCheck CheckMapping(BoardDesign design, IReadOnlyList<DesignTerm> terms, List<string> variables, List<ShootingChannel> channels, double intervalSeconds, StructureCheckResult structure)

@@ -8,6 +8,10 @@ namespace Patchproof.Core.Captures.Checks;
 /// <see cref="PeakRatio"/> n_next. A smooth peak read by a quantizing scope also dwells on its top level, but
 /// only about 2.4 times as long as on the level below (the dwell grows as the square root of the depth below a
 /// parabolic peak), so the ratio of 4 separates the two.
+/// When the metadata states the channel's screen window (<see cref="ScopeWindow"/>) and the samples fit inside it, a
+/// level farther than <see cref="EdgeFraction"/> of the window's height from both edges is not a clip: a signal that
+/// rests near a floor for long stretches (a Rössler z between its spikes, within one quantization step) dwells on
+/// its lowest level as a clipped one would.
 /// </remarks>
 public sealed class ClippingCheck : ICaptureCheck
 {
@@ -19,6 +23,9 @@ public sealed class ClippingCheck : ICaptureCheck
 
     /// <summary>How many times more samples the extreme holds than the next level inside.</summary>
     public const double PeakRatio = 4;
+
+    /// <summary>How close to a stated window edge, as a fraction of its height, a level must be to count as clipped.</summary>
+    public const double EdgeFraction = 0.02;
 
     /// <inheritdoc/>
     public string Id => "clipping";
@@ -41,9 +48,15 @@ public sealed class ClippingCheck : ICaptureCheck
                 continue;
             }
 
+            var window = ScopeWindow.TryRead(capture.Metadata, channel.Name, min, max);
             foreach (var top in new[] { true, false })
             {
                 var level = (float)(top ? max : min);
+                if (window is not null && !window.IsAtEdge(level, EdgeFraction))
+                {
+                    continue;
+                }
+
                 var (count, longest, runs, next) = Examine(channel.Samples.Span, level, top);
                 var fraction = (double)count / length;
                 if (longest >= MinimumRun && fraction >= MinimumFraction && count >= PeakRatio * Math.Max(1, next))

@@ -29,6 +29,7 @@ public static class MultipleShootingEstimator
     /// <param name="intervalSeconds">The sample interval; positive.</param>
     /// <param name="options">Segment length, tolerances, loss.</param>
     /// <param name="stateGuess">Optional full-state guess per sample (for hidden states, from <see cref="PecoraCarrollSynchronizer"/>); observed states are taken from the channels.</param>
+    /// <param name="initialChannelOffsetsVolts">Optional starting channel offsets, one per channel (for example from <see cref="EquationErrorStart"/>); zeros when null.</param>
     /// <returns>The fitted values, their covariance, and how the fit went.</returns>
     /// <exception cref="ArgumentOutOfRangeException">Shapes disagree, or a setting is out of range.</exception>
     public static MultipleShootingResult Fit(
@@ -38,7 +39,8 @@ public static class MultipleShootingEstimator
         double startSeconds,
         double intervalSeconds,
         MultipleShootingOptions options,
-        IReadOnlyList<double[]>? stateGuess = null)
+        IReadOnlyList<double[]>? stateGuess = null,
+        IReadOnlyList<double>? initialChannelOffsetsVolts = null)
     {
         Preconditions.CheckArgumentRange(nameof(initialParameters), initialParameters.Count == field.ParameterCount, "must have one value per field parameter");
         Preconditions.CheckArgumentRange(nameof(channels), channels.Count > 0 && channels.All(c => c.Samples.Count == channels[0].Samples.Count && c.NoiseSdVolts > 0 && c.NominalGain != 0), "needs channels of equal length with positive noise and non-zero gain");
@@ -55,13 +57,20 @@ public static class MultipleShootingEstimator
             var state = new double[n];
             for (var j = 0; j < n; j++)
             {
-                var channel = channels.FirstOrDefault(c => c.StateIndex == j);
-                state[j] = channel is not null ? channel.Samples[sample] / channel.NominalGain : stateGuess?[sample][j] ?? 0;
+                var c = 0;
+                while (c < channels.Count && channels[c].StateIndex != j)
+                {
+                    c++;
+                }
+
+                state[j] = c < channels.Count
+                    ? (channels[c].Samples[sample] - (initialChannelOffsetsVolts?[c] ?? 0)) / channels[c].NominalGain
+                    : stateGuess?[sample][j] ?? 0;
             }
 
             return (IReadOnlyList<double>)state;
         }).ToList();
-        var start = problem.Pack(segmentStates, initialParameters, new double[channels.Count]);
+        var start = problem.Pack(segmentStates, initialParameters, initialChannelOffsetsVolts?.ToArray() ?? new double[channels.Count]);
         var outcome = LevenbergMarquardtSolver.Minimize(problem, start, options.Solver);
         var solution = outcome.Parameters;
 
