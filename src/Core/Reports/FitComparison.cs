@@ -193,6 +193,8 @@ public sealed record FittedLine(int FirstIndex, int LastIndex, double FromX, dou
 /// <param name="DelaySeconds">The same in seconds.</param>
 /// <param name="EmbeddingDimension">The embedding dimension.</param>
 /// <param name="DelayRule">Which rule chose the delay.</param>
+/// <param name="MutualInformationBits">The mutual information against the lag in samples (0, 1, ...), whose first minimum is the delay.</param>
+/// <param name="FalseNeighbourFractions">The false-nearest-neighbour fraction for dimensions 1, 2, ...; the dimension is the first below 1 %.</param>
 /// <param name="TemporalExclusionSamples">Neighbours closer in time than this were not used.</param>
 /// <param name="ReferencePoints">Reference points averaged over.</param>
 /// <param name="TimesSeconds">Times of the divergence curve.</param>
@@ -209,6 +211,8 @@ public sealed record CaptureLyapunovEstimate(
     double DelaySeconds,
     int EmbeddingDimension,
     string DelayRule,
+    double[] MutualInformationBits,
+    double[] FalseNeighbourFractions,
     int TemporalExclusionSamples,
     int ReferencePoints,
     double[] TimesSeconds,

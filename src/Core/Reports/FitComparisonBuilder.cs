@@ -93,28 +93,30 @@ public static class FitComparisonBuilder
         var settings = new ComparisonSettings(tau, dt, n, recordedStates.Select(j => variables[j]).ToList(), hidden, options.SimulationTolerance, TraceDecimation.DefaultPointBudget,
             "the fit's polynomial vector field in volts and seconds: nominal coefficients with zero offsets, or the fitted coefficients and offsets");
 
-        var timings = new List<PartTiming>();
-        var lap = Stopwatch.StartNew();
-        void Lap(string part)
+        // The parts run as tasks (longest first) so that a machine with more than one core overlaps them; each part
+        // reads only the shared arrays and writes its own result.
+        var timings = new PartTiming?[12];
+        Task<T> Start<T>(int slot, string part, Func<T> work) => Task.Run(() =>
         {
-            timings.Add(new PartTiming(part, lap.Elapsed.TotalSeconds));
-            lap.Restart();
-        }
+            var watch = Stopwatch.StartNew();
+            var value = work();
+            timings[slot] = new PartTiming(part, watch.Elapsed.TotalSeconds);
+            return value;
+        });
 
-        Lap("states");
         var startState = reference.Select(channel => channel[0]).ToArray();
-        var fittedSpectrum = ModelSpectrum("fitted", field, startState, fitted, tau, options);
-        var nominalSpectrum = ModelSpectrum("nominal", field, startState, nominal, tau, options);
-        Lap("model Lyapunov spectra");
+        var captureLyapunovTask = Start(0, "Rosenstein exponent from the capture", () => CaptureExponent(reference, recordedStates, variables, recordedChannels, dt, tau));
+        var captureDimensionTask = Start(1, "correlation dimension of the capture", () => DimensionOf("capture", reference, recordedStates, dt));
+        var fittedSpectrumTask = Start(2, "fitted Lyapunov spectrum", () => ModelSpectrum("fitted", field, startState, fitted, tau, options));
+        var nominalSpectrumTask = Start(3, "nominal Lyapunov spectrum", () => ModelSpectrum("nominal", field, startState, nominal, tau, options));
+        var fittedRunTask = Start(4, "fitted free run", () => Attempt(() => RestartedSimulation.Run(field, fitted, reference, dt, 0, n, options.SimulationTolerance)));
+        var nominalRunTask = Start(5, "nominal free run", () => Attempt(() => RestartedSimulation.Run(field, nominal, reference, dt, 0, n, options.SimulationTolerance)));
+        var fittedSpectrum = fittedSpectrumTask.Result;
         var lambda = fittedSpectrum.Computed && fittedSpectrum.LargestPerSecond > 0 ? fittedSpectrum.LargestPerSecond : double.NaN;
-
-        var overlays = Overlays(field, nominal, fitted, reference, recordedStates, variables, dt, tau, lambda, options);
-        Lap("overlays");
-        var horizon = Horizons(field, nominal, fitted, reference, recordedStates, variables, dt, tau, lambda, options);
-        Lap("predictability horizons");
-        var fittedRun = Attempt(() => RestartedSimulation.Run(field, fitted, reference, dt, 0, n, options.SimulationTolerance));
-        var nominalRun = Attempt(() => RestartedSimulation.Run(field, nominal, reference, dt, 0, n, options.SimulationTolerance));
-        Lap("free-running simulations");
+        var overlaysTask = Start(6, "overlays", () => Overlays(field, nominal, fitted, reference, recordedStates, variables, dt, tau, lambda, options));
+        var horizonTask = Start(7, "predictability horizons", () => Horizons(field, nominal, fitted, reference, recordedStates, variables, dt, tau, lambda, options));
+        var fittedRun = fittedRunTask.Result;
+        var nominalRun = nominalRunTask.Result;
         var fittedSamples = fittedRun.Value?[0].Length ?? 0;
         if (fittedSamples < n)
         {
@@ -123,17 +125,22 @@ public static class FitComparisonBuilder
 
         var fittedFree = fittedRun.Value is { } run && run[0].Length >= n / 2 ? run : null;
         var nominalFree = nominalRun.Value is { } other && other[0].Length >= n / 2 ? other : null;
-        var captureLyapunov = CaptureExponent(reference, recordedStates, variables, recordedChannels, dt, tau);
-        Lap("Rosenstein exponent");
-        var dimension = Dimensions(reference, fittedFree, recordedStates, variables, dt);
-        Lap("correlation dimensions");
+        var fittedDimensionTask = Start(8, "correlation dimension of the fitted simulation", () => DimensionOf("fitted", fittedFree, recordedStates, dt));
+        var watch = Stopwatch.StartNew();
         var returnMap = ReturnMapOf(reference, fittedFree, recordedStates, variables, dt, options);
         var lobes = LobesOf(reference, fittedFree, recordedStates, variables, dt, options);
-        Lap("return map and lobes");
+        timings[9] = new PartTiming("return map and lobes", watch.Elapsed.TotalSeconds);
+        watch.Restart();
         var occupancy = OccupancyOf(reference, fittedFree, nominalFree, recordedStates, variables);
-        Lap("occupancy");
+        timings[10] = new PartTiming("occupancy", watch.Elapsed.TotalSeconds);
+        watch.Restart();
         var spectra = recordedStates.Select(j => SpectrumOf(recordedChannels[j], variables[j], reference[j], fittedFree?[j], nominalFree?[j], dt)).ToList();
-        Lap("spectra");
+        timings[11] = new PartTiming("spectra", watch.Elapsed.TotalSeconds);
+        var nominalSpectrum = nominalSpectrumTask.Result;
+        var overlays = overlaysTask.Result;
+        var horizon = horizonTask.Result;
+        var captureLyapunov = captureLyapunovTask.Result;
+        var dimension = new DimensionComparison(recordedStates.Select(j => variables[j]).ToList(), captureDimensionTask.Result, fittedDimensionTask.Result);
 
         foreach (var (computed, reason, what) in new (bool, string, string)[]
         {
@@ -160,7 +167,7 @@ public static class FitComparisonBuilder
         var invariants = Summary(fittedSpectrum, nominalSpectrum, captureLyapunov, horizon, dimension, returnMap, lobes, occupancy, spectra);
         return new FitComparison(true, string.Join("; ", reasons), settings, invariants, overlays, horizon,
             new ModelLyapunovComparison("Benettin: variational equations, modified Gram-Schmidt every problem time unit", fittedSpectrum, nominalSpectrum),
-            captureLyapunov, dimension, returnMap, lobes, occupancy, spectra, stopwatch.Elapsed.TotalSeconds, timings);
+            captureLyapunov, dimension, returnMap, lobes, occupancy, spectra, stopwatch.Elapsed.TotalSeconds, [.. timings.OfType<PartTiming>()]);
     }
 
     /// <summary>Each recorded state in volts (offset removed, signed gain divided out), and the channel naming each state.</summary>
@@ -310,7 +317,7 @@ public static class FitComparisonBuilder
         var outcome = Attempt(() => RosensteinLyapunov.EstimateFromSeries(reference[state], dt));
         if (outcome.Value is not { } result)
         {
-            return new CaptureLyapunovEstimate(false, outcome.Reason, channels[state], variables[state], double.NaN, double.NaN, 0, 0, 0, "", 0, 0, [], [], null);
+            return new CaptureLyapunovEstimate(false, outcome.Reason, channels[state], variables[state], double.NaN, double.NaN, 0, 0, 0, "", [], [], 0, 0, [], [], null);
         }
 
         var embedding = result.Embedding;
@@ -321,37 +328,32 @@ public static class FitComparisonBuilder
             _ => "the divergence curve has no straight stretch the rule accepts",
         };
         return new CaptureLyapunovEstimate(result.Status == EstimateStatus.Estimated, reason, channels[state], variables[state], result.LargestExponentPerSecond, result.LargestExponentPerSecond * tau,
-            embedding?.Delay ?? 0, (embedding?.Delay ?? 0) * dt, embedding?.Dimension ?? 0, embedding?.DelayRule.ToString() ?? "", result.TemporalExclusionSamples, result.ReferencePointCount,
+            embedding?.Delay ?? 0, (embedding?.Delay ?? 0) * dt, embedding?.Dimension ?? 0, embedding?.DelayRule.ToString() ?? "",
+            embedding?.MutualInformationBits ?? [], embedding?.FalseNeighbourFractions ?? [], result.TemporalExclusionSamples, result.ReferencePointCount,
             result.DivergenceTimesSeconds, result.MeanLogDivergence, Line(result.Fit, result.DivergenceTimesSeconds));
     }
 
-    private static DimensionComparison Dimensions(double[][] reference, double[][]? fittedRun, int[] recorded, IReadOnlyList<string> variables, double dt)
+    private static CorrelationDimensionEstimate DimensionOf(string role, double[][]? channels, int[] recorded, double dt)
     {
-        CorrelationDimensionEstimate Estimate(string role, double[][]? channels)
+        if (channels is null)
         {
-            if (channels is null)
-            {
-                return new CorrelationDimensionEstimate(role, false, "the fitted design's simulation did not run", double.NaN, [], [], [], null, 0, 0);
-            }
-
-            var length = channels[recorded[0]].Length;
-            var outcome = Attempt(() => CorrelationDimension.EstimateFromChannels(recorded.Select(j => channels[j][..length]).ToArray(), dt));
-            if (outcome.Value is not { } result)
-            {
-                return new CorrelationDimensionEstimate(role, false, outcome.Reason, double.NaN, [], [], [], null, 0, 0);
-            }
-
-            var reason = result.Status switch
-            {
-                EstimateStatus.Estimated => "",
-                EstimateStatus.TooShort => "the record is too short for the Grassberger-Procaccia method",
-                _ => "the local slopes have no shelf with enough pairs",
-            };
-            return new CorrelationDimensionEstimate(role, result.Status == EstimateStatus.Estimated, reason, result.Dimension, result.LogRadius, result.LogCorrelationSum, result.LocalSlopes,
-                Line(result.Fit, result.LogRadius), result.TheilerWindowSamples, result.ReferencePointCount);
+            return new CorrelationDimensionEstimate(role, false, "the fitted design's simulation did not run", double.NaN, [], [], [], null, 0, 0);
         }
 
-        return new DimensionComparison(recorded.Select(j => variables[j]).ToList(), Estimate("capture", reference), Estimate("fitted", fittedRun));
+        var outcome = Attempt(() => CorrelationDimension.EstimateFromChannels(recorded.Select(j => channels[j]).ToArray(), dt));
+        if (outcome.Value is not { } result)
+        {
+            return new CorrelationDimensionEstimate(role, false, outcome.Reason, double.NaN, [], [], [], null, 0, 0);
+        }
+
+        var reason = result.Status switch
+        {
+            EstimateStatus.Estimated => "",
+            EstimateStatus.TooShort => "the record is too short for the Grassberger-Procaccia method",
+            _ => "the local slopes have no shelf with enough pairs",
+        };
+        return new CorrelationDimensionEstimate(role, result.Status == EstimateStatus.Estimated, reason, result.Dimension, result.LogRadius, result.LogCorrelationSum, result.LocalSlopes,
+            Line(result.Fit, result.LogRadius), result.TheilerWindowSamples, result.ReferencePointCount);
     }
 
     private static ReturnMapComparison ReturnMapOf(double[][] reference, double[][]? fittedRun, int[] recorded, IReadOnlyList<string> variables, double dt, FitComparisonOptions options)

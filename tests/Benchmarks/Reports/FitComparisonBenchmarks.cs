@@ -39,6 +39,31 @@ public class FitComparisonBenchmarks
         }
     }
 
+    /// <summary>Runs the comparison several times after one setup and prints each part's time (<c>comparison-timings [runs]</c>).</summary>
+    public static int PrintTimings(int runs)
+    {
+        var benchmark = new FitComparisonBenchmarks();
+        benchmark.Setup();
+        for (var run = 0; run < runs; run++)
+        {
+            var cpuBefore = System.Diagnostics.Process.GetCurrentProcess().TotalProcessorTime;
+            var comparison = FitComparisonBuilder.Build(benchmark.design, benchmark.capture, benchmark.report);
+            var cpuSeconds = (System.Diagnostics.Process.GetCurrentProcess().TotalProcessorTime - cpuBefore).TotalSeconds;
+            var parts = string.Join(", ", comparison.Timings.Select(t => string.Create(CultureInfo.InvariantCulture, $"{t.Part} {t.Seconds:0.000}")));
+            Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"run {run + 1}: {comparison.ElapsedSeconds:0.000} s wall, {cpuSeconds:0.000} s of CPU, load average {LoadAverage()} ({parts})"));
+            if (run == 0 && comparison.CaptureLyapunov is { } exponent)
+            {
+                var fractions = string.Join(" ", exponent.FalseNeighbourFractions.Select(f => f.ToString("0.000", CultureInfo.InvariantCulture)));
+                Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  Rosenstein: {exponent.LargestPerProblemUnit:0.000} per unit, delay {exponent.DelaySamples}, dimension {exponent.EmbeddingDimension}, false neighbours {fractions}; model {comparison.ModelLyapunov?.Fitted.LargestPerProblemUnit:0.000}; dimension {comparison.CorrelationDimension?.Capture.Dimension:0.000} / {comparison.CorrelationDimension?.Fitted.Dimension:0.000}"));
+            }
+        }
+
+        return 0;
+    }
+
+    private static string LoadAverage() =>
+        File.Exists("/proc/loadavg") ? string.Join(" ", File.ReadAllText("/proc/loadavg").Split(' ').Take(3)) : "unknown";
+
     [Benchmark]
     public double WholeComparison() => FitComparisonBuilder.Build(design, capture, report).ElapsedSeconds;
 
