@@ -72,6 +72,7 @@ public static class MultipleShootingEstimator
         }).ToList();
         var start = problem.Pack(segmentStates, initialParameters, initialChannelOffsetsVolts?.ToArray() ?? new double[channels.Count]);
         var outcome = LevenbergMarquardtSolver.Minimize(problem, start, options.Solver);
+        outcome = RestartWhileStalled(problem, outcome, options.Solver);
         var solution = outcome.Parameters;
 
         // Uncertainty at the solution: relinearize, condense, scale by the residual variance, widen for correlation.
@@ -133,6 +134,35 @@ public static class MultipleShootingEstimator
             outcome.Iterations,
             outcome.ExitReason,
             outcome.SumOfSquares);
+    }
+
+    /// <summary>Restarts the loop (damping and scaling reset) while it stopped on a small step under heavy damping.</summary>
+    /// <remarks>Near the optimum the shooting cost is not exactly quadratic (Huber weights, continuity at the joins,
+    /// adaptive integration), so a run of rejected steps can drive lambda up until every step is tiny and the step test
+    /// fires far from the minimum. A fresh start with light damping takes the Gauss-Newton step again; the restarts
+    /// share the iteration cap.</remarks>
+    private static LevenbergMarquardtOutcome RestartWhileStalled(MultipleShootingProblem problem, LevenbergMarquardtOutcome outcome, LevenbergMarquardtOptions solver)
+    {
+        var iterations = outcome.Iterations;
+        for (var restart = 0; restart < 3; restart++)
+        {
+            var stalled = outcome.ExitReason is LevenbergMarquardtExitReason.ConvergedOnStep && outcome.FinalDamping > 1e3 * solver.InitialDamping;
+            if (!stalled || iterations >= solver.MaxIterations)
+            {
+                break;
+            }
+
+            var again = LevenbergMarquardtSolver.Minimize(problem, outcome.Parameters, solver with { MaxIterations = solver.MaxIterations - iterations });
+            iterations += again.Iterations;
+            var improved = again.SumOfSquares < outcome.SumOfSquares;
+            outcome = (improved ? again : outcome) with { Iterations = iterations };
+            if (!improved)
+            {
+                break;
+            }
+        }
+
+        return outcome;
     }
 
     /// <summary>The inverse of the condensed curvature where the data resolve it; NaN in the rows and columns of every

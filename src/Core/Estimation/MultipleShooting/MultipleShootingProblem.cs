@@ -486,7 +486,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
                     residuals[c][i] = misfit;
                 }
 
-                cost += huberWeights[c][i] * misfit * misfit;
+                cost += excludedWeights[c][i] * HuberLoss(misfit);
             }
         }
 
@@ -559,6 +559,15 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
             globalBlock[index, index] += derivative * derivative;
             globalGradient[index] += derivative * residual;
         }
+    }
+
+    /// <summary>Huber's rho in the scale of a squared residual: r^2 inside the threshold k, 2k|r| - k^2 outside.</summary>
+    /// <remarks>The cost the loop compares must not change between iterations; the weights min(1, k/|r|) that the
+    /// linearization refreshes are this rho's iteratively reweighted Gauss-Newton model, so the two agree to first order.</remarks>
+    private double HuberLoss(double misfit)
+    {
+        var size = Math.Abs(misfit);
+        return options.HuberThreshold is { } k && size > k ? (2 * k * size) - (k * k) : misfit * misfit;
     }
 
     private void UpdateHuberWeights(double[] unknowns)
