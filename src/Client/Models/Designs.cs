@@ -11,7 +11,11 @@ public sealed record DesignSheet(
     IReadOnlyList<string> Equations,
     double TimeScaleSeconds,
     IReadOnlyList<DesignBlock> Blocks,
-    IReadOnlyList<DesignPart> Parts);
+    IReadOnlyList<DesignPart> Parts)
+{
+    /// <summary>The design file this sheet stands for, as the server sent it; the server applies the sheet's part values to it when it checks or stores the sheet.</summary>
+    public System.Text.Json.JsonElement? Document { get; init; }
+}
 
 /// <summary>One block of the board.</summary>
 /// <param name="Id">Its label on the board, for example "I1" or "M2".</param>
@@ -43,4 +47,8 @@ public sealed record DesignCheckNote(CheckSeverity Severity, string Subject, str
 /// <param name="Name">Its name, for example "Lorenz system".</param>
 /// <param name="Summary">One line about it, with its usual parameters.</param>
 /// <param name="Equations">Its right-hand sides in the equation language.</param>
-public sealed record BuiltInModelEntry(string Id, string Name, string Summary, IReadOnlyList<string> Equations);
+public sealed record BuiltInModelEntry(string Id, string Name, string Summary, IReadOnlyList<string> Equations)
+{
+    /// <summary>True when the server can propose a design for this model.</summary>
+    public bool CanGenerateDesign { get; init; } = true;
+}

@@ -105,4 +105,11 @@ public sealed record FitReportView(
     IReadOnlyList<InvariantView> Invariants,
     StructureCheckView? StructureCheck,
     ComparisonPlots Plots,
-    ReportExportLinks Export);
+    ReportExportLinks Export)
+{
+    /// <summary>Why the findings may be unsafe, in plain words; empty when they are safe.</summary>
+    public IReadOnlyList<string> Warnings { get; init; } = [];
+
+    /// <summary>Further remarks of the diagnosis and the server.</summary>
+    public IReadOnlyList<string> Notes { get; init; } = [];
+}

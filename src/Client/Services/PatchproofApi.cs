@@ -49,24 +49,11 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
     /// <inheritdoc />
     public async Task<ApiResult<DesignSheet>> GetDesignAsync(Guid boardId, int? version, CancellationToken cancellationToken = default)
     {
-        var path = version is { } v ? $"api/boards/{boardId}/designs/{v}" : $"api/boards/{boardId}/designs/latest";
-        var answer = await SendAsync<DesignVersionWire, DesignVersionWire>(() => new HttpRequestMessage(HttpMethod.Get, path), w => w, cancellationToken);
-        if (!answer.Succeeded)
-        {
-            return ApiResult<DesignSheet>.Fail(answer.Problem!);
-        }
-
-        try
-        {
-            var sheet = answer.Value.Document.Deserialize<DesignSheet>(Json);
-            return sheet is null
-                ? ApiResult<DesignSheet>.Fail(0, "The stored design is empty")
-                : ApiResult<DesignSheet>.Ok(sheet with { Equations = sheet.Equations ?? [], Blocks = sheet.Blocks ?? [], Parts = sheet.Parts ?? [] });
-        }
-        catch (JsonException ex)
-        {
-            return ApiResult<DesignSheet>.Fail(0, "The stored design is not in a form this page can edit", ex.Message);
-        }
+        var path = version is { } v ? $"api/boards/{boardId}/designs/{v}/sheet" : $"api/boards/{boardId}/designs/latest/sheet";
+        var answer = await SendAsync<DesignSheet, DesignSheet>(() => new HttpRequestMessage(HttpMethod.Get, path), sheet => sheet, cancellationToken);
+        return answer.Succeeded
+            ? ApiResult<DesignSheet>.Ok(answer.Value with { Equations = answer.Value.Equations ?? [], Blocks = answer.Value.Blocks ?? [], Parts = answer.Value.Parts ?? [] })
+            : answer;
     }
 
     /// <inheritdoc />
@@ -86,7 +73,7 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
 
     /// <inheritdoc />
     public async Task<ApiResult<DesignSheet>> GenerateDesignAsync(string modelId, CancellationToken cancellationToken = default) =>
-        await SendAsync<DesignSheet, DesignSheet>(() => new HttpRequestMessage(HttpMethod.Post, $"api/models/{Uri.EscapeDataString(modelId)}/design"), d => d, cancellationToken);
+        await SendAsync<DesignSheet, DesignSheet>(() => new HttpRequestMessage(HttpMethod.Post, $"api/models/{Uri.EscapeDataString(modelId)}/design"), d => d with { Equations = d.Equations ?? [], Blocks = d.Blocks ?? [], Parts = d.Parts ?? [] }, cancellationToken);
 
     /// <inheritdoc />
     public Task<ApiResult<IReadOnlyList<CaptureEntry>>> ListCapturesAsync(Guid boardId, CancellationToken cancellationToken = default) =>
@@ -148,7 +135,11 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
         var s = sections.Value;
         return ApiResult<FitReportView>.Ok(new FitReportView(
             fitId, wire.Board.ToView(), wire.Design.Version, (wire.Captures ?? []).Select(c => c.ToView()).ToList(),
-            s.Summary, s.Findings, s.Coefficients, s.Offsets, s.TimeScale, s.Invariants, s.StructureCheck, s.Plots, ExportLinks(fitId)));
+            s.Summary, s.Findings, s.Coefficients, s.Offsets, s.TimeScale, s.Invariants, s.StructureCheck, s.Plots, ExportLinks(fitId))
+        {
+            Warnings = s.Warnings,
+            Notes = s.Notes,
+        });
     }
 
     /// <inheritdoc />

@@ -7,7 +7,7 @@ namespace Patchproof.Client.Services;
 /// <summary>Reads the fit engine's result document (the <c>result</c> of a report) into the report page's sections.</summary>
 /// <remarks>
 /// The document is camel-case JSON: <c>summary</c>, <c>findings</c>, <c>coefficients</c>, <c>offsets</c>,
-/// <c>timeScale</c>, <c>invariants</c>, <c>structureCheck</c> and <c>plots</c> (see docs/web-app.md). A section the
+/// <c>timeScale</c>, <c>invariants</c>, <c>structureCheck</c>, <c>plots</c>, <c>warnings</c> and <c>notes</c> (see docs/web-app.md). A section the
 /// document lacks comes back empty, so a report of an older engine still opens; a document that is not an object
 /// comes back as a problem.
 /// </remarks>
@@ -15,6 +15,8 @@ public static class ReportDocumentReader
 {
     private static readonly JsonSerializerOptions Options = new(JsonSerializerDefaults.Web)
     {
+        // An uncertainty the capture cannot give arrives as "NaN" or "Infinity".
+        NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals,
         Converters = { new JsonStringEnumConverter(JsonNamingPolicy.CamelCase) },
     };
 
@@ -35,7 +37,14 @@ public static class ReportDocumentReader
         TimeScaleView? TimeScale,
         IReadOnlyList<InvariantView> Invariants,
         StructureCheckView? StructureCheck,
-        ComparisonPlots Plots);
+        ComparisonPlots Plots)
+    {
+        /// <summary>Why the findings may be unsafe (the fit did not converge, the capture clipped...); empty when they are safe.</summary>
+        public IReadOnlyList<string> Warnings { get; init; } = [];
+
+        /// <summary>Further remarks of the diagnosis and the server.</summary>
+        public IReadOnlyList<string> Notes { get; init; } = [];
+    }
 
     private sealed record Document(
         string? Summary,
@@ -45,7 +54,9 @@ public static class ReportDocumentReader
         TimeScaleView? TimeScale,
         List<InvariantView>? Invariants,
         StructureCheckView? StructureCheck,
-        PlotsDocument? Plots);
+        PlotsDocument? Plots,
+        List<string>? Warnings,
+        List<string>? Notes);
 
     private sealed record PlotsDocument(
         List<OverlayPlot>? PhasePlanes,
@@ -90,6 +101,10 @@ public static class ReportDocumentReader
             document.TimeScale,
             document.Invariants ?? [],
             document.StructureCheck,
-            plots));
+            plots)
+        {
+            Warnings = document.Warnings ?? [],
+            Notes = document.Notes ?? [],
+        });
     }
 }

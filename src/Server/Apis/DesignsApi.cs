@@ -19,7 +19,7 @@ internal static class DesignsApi
         var designs = routes.MapGroup("/api/boards/{boardId:guid}/designs").WithTags("Designs");
         designs.MapGet("/", ListAsync).WithName("ListDesignVersions").WithSummary("Lists a board's design versions, newest first.");
         designs.MapPost("/", CreateAsync).WithName("CreateDesignVersion")
-            .WithSummary("Stores the JSON request body (application/json) as the board's next design version; ?note= says what changed.")
+            .WithSummary("Stores the JSON request body (application/json), a design file or a design sheet with its design file, as the board's next design version; ?note= says what changed.")
             .ProducesProblem(StatusCodes.Status422UnprocessableEntity)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge);
         designs.MapGet("/latest", GetLatestAsync).WithName("GetLatestDesignVersion").WithSummary("Reads the newest design version with its document.");
@@ -89,6 +89,16 @@ internal static class DesignsApi
                 detail: $"A design document may have at most {MaxDocumentBytes} bytes.");
         }
 
+        // The design screen sends a sheet (its part values over the design file it came from); store the design file it makes.
+        var file = DesignSheetsApi.DesignFileOf(document);
+        if (!file.TryGetValue(out var designFile))
+        {
+            return DesignSheetsApi.AreFieldErrors(file.Errors)
+                ? DesignSheetsApi.FieldProblem(file.Errors)
+                : LocatedProblems.Unreadable("The design sheet cannot be stored", file.Errors[0].File, file.Errors);
+        }
+
+        document = designFile;
         var errors = validator.Validate(document);
         if (errors.Count > 0)
         {
@@ -122,7 +132,7 @@ internal static class DesignsApi
         }
     }
 
-    private static async Task<string?> ReadBodyAsync(HttpRequest request, CancellationToken cancellationToken)
+    internal static async Task<string?> ReadBodyAsync(HttpRequest request, CancellationToken cancellationToken)
     {
         if (request.ContentLength > MaxDocumentBytes)
         {

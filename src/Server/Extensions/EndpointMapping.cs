@@ -14,6 +14,10 @@ internal static class EndpointMapping
         app.MapCaptureEndpoints();
         app.MapFitEndpoints();
         app.MapReportEndpoints();
+        app.MapReportExportEndpoints();
+        app.MapModelEndpoints();
+        app.MapDesignSheetEndpoints();
+        app.MapMappingCheckEndpoints();
         return app;
     }
 }

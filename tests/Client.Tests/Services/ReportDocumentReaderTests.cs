@@ -44,6 +44,21 @@ public sealed class ReportDocumentReaderTests
     }
 
     [Fact]
+    public void Read_WarningsNotesAndNonFiniteErrors_AreKept()
+    {
+        using var json = JsonDocument.Parse("""
+            { "coefficients": [ { "equation": "dz/dt", "term": "z", "nominal": -2670, "estimate": -2650, "standardError": "NaN" } ],
+              "warnings": ["The fit stopped before converging."], "notes": ["The fit used a.csv."] }
+            """);
+
+        var sections = ReportDocumentReader.Read(json.RootElement).Value;
+
+        Assert.True(double.IsNaN(Assert.Single(sections.Coefficients).StandardError));
+        Assert.Equal(["The fit stopped before converging."], sections.Warnings);
+        Assert.Equal(["The fit used a.csv."], sections.Notes);
+    }
+
+    [Fact]
     public void Read_EmptyObject_GivesEmptySections()
     {
         using var json = JsonDocument.Parse("{}");

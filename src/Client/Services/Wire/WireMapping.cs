@@ -24,7 +24,7 @@ internal static class WireMapping
 
     public static DesignCheckNote ToView(this DesignCheckNoteWire w) => new(ToSeverity(w.Severity), w.Subject ?? "", w.Message);
 
-    public static BuiltInModelEntry ToView(this BuiltInModelWire w) => new(w.Id, w.Name, w.Summary, w.Equations ?? []);
+    public static BuiltInModelEntry ToView(this BuiltInModelWire w) => new(w.Id, w.Name, w.Summary, w.Equations ?? []) { CanGenerateDesign = w.CanGenerateDesign };
 
     public static CheckSeverity ToSeverity(string? severity) => severity?.ToLowerInvariant() switch
     {

@@ -13,7 +13,6 @@ internal sealed record BoardWire(
 
 internal sealed record DesignVersionSummaryWire(Guid BoardId, int Version, string? Note, DateTimeOffset CreatedAt);
 
-internal sealed record DesignVersionWire(Guid BoardId, int Version, string? Note, DateTimeOffset CreatedAt, JsonElement Document);
 
 internal sealed record CaptureCheckWire(string Severity, int Line, int Column, string Message);
 
@@ -37,4 +36,4 @@ internal sealed record MappingCheckWire(bool AgreesWithGiven, List<ChannelMappin
 
 internal sealed record DesignCheckNoteWire(string Severity, string Subject, string Message);
 
-internal sealed record BuiltInModelWire(string Id, string Name, string Summary, List<string> Equations);
+internal sealed record BuiltInModelWire(string Id, string Name, string Summary, List<string> Equations, bool CanGenerateDesign = true);

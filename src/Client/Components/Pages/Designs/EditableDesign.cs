@@ -17,9 +17,13 @@ public sealed class EditableDesign
     /// <summary>The parts, whose values and tolerances the screen edits.</summary>
     public List<EditablePart> Parts { get; set; } = [];
 
+    /// <summary>The design file the sheet stands for, passed back unchanged.</summary>
+    public System.Text.Json.JsonElement? Document { get; set; }
+
     /// <summary>A copy of a design to edit.</summary>
     public static EditableDesign From(DesignSheet sheet) => new()
     {
+        Document = sheet.Document,
         ModelName = sheet.ModelName,
         TimeScaleSeconds = sheet.TimeScaleSeconds,
         Blocks = sheet.Blocks,
@@ -32,7 +36,10 @@ public sealed class EditableDesign
     /// <summary>The edited design with the given equations.</summary>
     public DesignSheet ToSheet(IReadOnlyList<string> equations) => new(
         ModelName, equations, TimeScaleSeconds, Blocks,
-        Parts.Select(p => new DesignPart(p.Reference, p.Kind, p.Block, p.Nominal, p.Unit, p.TolerancePercent)).ToList());
+        Parts.Select(p => new DesignPart(p.Reference, p.Kind, p.Block, p.Nominal, p.Unit, p.TolerancePercent)).ToList())
+    {
+        Document = Document,
+    };
 }
 
 /// <summary>One part being edited.</summary>

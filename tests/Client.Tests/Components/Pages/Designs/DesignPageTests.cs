@@ -51,6 +51,48 @@ public sealed class DesignPageTests : BunitContext
     }
 
     [Fact]
+    public void Render_NoDesign_OffersGenerationOnlyForModelsTheServerCanGenerate()
+    {
+        api.Design = _ => FakePatchproofApi.Problem<DesignSheet>(404, "Not found on the server");
+        api.Models = FakePatchproofApi.Ok<IReadOnlyList<BuiltInModelEntry>>(
+        [
+            new("lorenz", "Lorenz system", "", []),
+            new("chua", "Chua circuit", "", []) { CanGenerateDesign = false },
+        ]);
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Equal(2, cut.FindAll(".model-picker li").Count));
+        var buttons = cut.FindAll(".model-picker button");
+        Assert.Equal("Generate a design from the Lorenz system", Assert.Single(buttons).GetAttribute("aria-label"));
+        Assert.Contains("No design can be generated", cut.FindAll(".model-picker li")[1].TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Save_AGeneratedDesign_SendsBackTheDesignFileItCameWith()
+    {
+        using var file = System.Text.Json.JsonDocument.Parse("""{ "format": "patchproof-design", "version": 1 }""");
+        api.Design = _ => FakePatchproofApi.Problem<DesignSheet>(404, "Not found on the server");
+        api.Models = FakePatchproofApi.Ok<IReadOnlyList<BuiltInModelEntry>>([new("lorenz", "Lorenz system", "", [])]);
+        api.GenerateDesign = _ => FakePatchproofApi.Ok(DemoData.LorenzDesign with { Document = file.RootElement.Clone() });
+        DesignSheet? sent = null;
+        api.SaveDesign = (sheet, _) =>
+        {
+            sent = sheet;
+            return FakePatchproofApi.Ok(new DesignVersionEntry(1, null, DateTimeOffset.UnixEpoch));
+        };
+        var cut = RenderPage();
+        cut.WaitForAssertion(() => cut.Find(".model-picker button"));
+        cut.Find(".model-picker button").Click();
+        cut.WaitForAssertion(() => cut.Find("table.parts"));
+
+        cut.FindAll("button").First(b => b.TextContent.Contains("Save as a new version", StringComparison.Ordinal)).Click();
+
+        cut.WaitForAssertion(() => Assert.NotNull(sent));
+        Assert.Equal("patchproof-design", sent!.Document!.Value.GetProperty("format").GetString());
+    }
+
+    [Fact]
     public void Generate_FromAModel_ShowsItsPartsForEditing()
     {
         api.Design = _ => FakePatchproofApi.Problem<DesignSheet>(404, "Not found on the server");

@@ -40,6 +40,38 @@ public sealed class ReportPageTests : BunitContext
     }
 
     [Fact]
+    public void Render_WithWarnings_ShowsThemBesideTheFindingsAndTheNotesAfter()
+    {
+        api.Report = FakePatchproofApi.Ok(DemoData.Report with
+        {
+            Warnings = ["The fit stopped before converging (MaxIterations); treat its numbers as rough."],
+            Notes = ["The fit used plover.csv, the first of the 2 captures chosen."],
+        });
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() =>
+        {
+            var warnings = cut.Find(".findings .warnings");
+            Assert.Contains("may be unsafe", warnings.TextContent, StringComparison.Ordinal);
+            Assert.Contains("stopped before converging", warnings.TextContent, StringComparison.Ordinal);
+            Assert.Contains("first of the 2 captures", cut.Find(".notes").TextContent, StringComparison.Ordinal);
+        });
+    }
+
+    [Fact]
+    public void Render_WithoutWarnings_ShowsNoWarningBox()
+    {
+        api.Report = FakePatchproofApi.Ok(DemoData.Report);
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.NotNull(cut.Find(".finding")));
+        Assert.Empty(cut.FindAll(".warnings"));
+        Assert.Empty(cut.FindAll(".notes"));
+    }
+
+    [Fact]
     public void Render_Loaded_PutsTheFindingsFirstWithHowFarHowSureAndWhatToDo()
     {
         api.Report = FakePatchproofApi.Ok(DemoData.Report);
