@@ -80,9 +80,10 @@ internal static class FitsApi
         };
         db.FitJobs.Add(fit);
         await db.SaveChangesAsync(cancellationToken);
-        signal.Notify();
 
+        // Read the answer before waking the workers, so it shows the fit as queued rather than racing a claim.
         var response = await FindAsync(db, fit.Id, cancellationToken);
+        signal.Notify();
         return TypedResults.Accepted($"/api/fits/{fit.Id}", response);
     }
 

@@ -27,10 +27,10 @@ internal static class FitResultMapper
             TimeScale(report),
             report.TimeConstants.Select(t => new TimeConstantDocument(t.Integrator, t.CapacitorId, t.NominalSeconds, t.EffectiveSeconds)).ToList(),
             [],
-            null,
+            report.StructureCheck.Performed ? new StructureCheckDocument(report.StructureCheck.Passed, report.StructureCheck.Message) : null,
             PlotsDocument.Empty,
             report.Warnings,
-            [.. diagnosis.Notes, .. serverNotes],
+            [.. diagnosis.Notes, .. CheckNotes(report), .. serverNotes],
             new FitRunDocument(
                 captureId,
                 captureFileName,
@@ -41,6 +41,16 @@ internal static class FitResultMapper
                 report.Quality.ExitReason,
                 report.Quality.ElapsedSeconds,
                 report.CoreVersion));
+    }
+
+    private static IEnumerable<string> CheckNotes(FitReport report)
+    {
+        if (!report.StructureCheck.Performed)
+        {
+            yield return report.StructureCheck.Message;
+        }
+
+        yield return report.MappingCheck.Message;
     }
 
     private static FindingDocument Finding(PartFinding finding, double probability, string? runnerUp)

@@ -18,9 +18,12 @@ internal static class SyntheticBoardCaptures
     public static BoardDesign Design(string file) => DesignFileReader.Read(DesignText(file), file).Value;
 
     /// <summary>The board as built with <paramref name="partFactors"/> applied to the named parts, recorded on every variable.</summary>
-    public static byte[] Csv(string designFile, IReadOnlyDictionary<string, double> partFactors, int seed, double problemUnits = 20)
+    public static byte[] Csv(string designFile, IReadOnlyDictionary<string, double> partFactors, int seed, double problemUnits = 20) =>
+        Csv(Design(designFile), partFactors, seed, problemUnits);
+
+    /// <summary>The same for a design given as a read design.</summary>
+    public static byte[] Csv(BoardDesign design, IReadOnlyDictionary<string, double> partFactors, int seed, double problemUnits = 20)
     {
-        var design = Design(designFile);
         var asBuilt = design.WithPartValues(partFactors.ToDictionary(p => p.Key, p => p.Value * design.NominalOf(p.Key)));
         var variables = asBuilt.Variables.Select(v => v.Name).ToList();
         var terms = asBuilt.Terms();

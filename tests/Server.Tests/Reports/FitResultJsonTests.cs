@@ -37,6 +37,8 @@ public sealed class FitResultJsonTests
         Assert.Equal(document.Warnings, read.Warnings);
         Assert.Contains("a server note", read.Notes);
         Assert.True(read.Plots.IsEmpty);
+        Assert.Equal(report.StructureCheck.Passed, read.StructureCheck?.Passed);
+        Assert.Contains(report.MappingCheck.Message, read.Notes);
     }
 
     [Fact]
