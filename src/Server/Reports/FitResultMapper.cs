@@ -26,9 +26,9 @@ internal static class FitResultMapper
             report.Offsets.Select(o => new OffsetDocument(o.Equation, o.EquivalentInputMillivolts, OffsetStandardErrorMillivolts(o), o.VoltsPerSecond)).ToList(),
             TimeScale(report),
             report.TimeConstants.Select(t => new TimeConstantDocument(t.Integrator, t.CapacitorId, t.NominalSeconds, t.EffectiveSeconds)).ToList(),
-            [],
+            ComparisonMapper.Invariants(report.Comparison),
             report.StructureCheck.Performed ? new StructureCheckDocument(report.StructureCheck.Passed, report.StructureCheck.Message) : null,
-            PlotsDocument.Empty,
+            ComparisonMapper.Plots(report.Comparison),
             report.Warnings,
             [.. diagnosis.Notes, .. CheckNotes(report), .. serverNotes],
             new FitRunDocument(
@@ -51,6 +51,10 @@ internal static class FitResultMapper
         }
 
         yield return report.MappingCheck.Message;
+        if (report.Comparison is { Computed: false } comparison)
+        {
+            yield return "No comparison with the simulations: " + comparison.Reason;
+        }
     }
 
     private static FindingDocument Finding(PartFinding finding, double probability, string? runnerUp)

@@ -57,7 +57,8 @@ public sealed class ReportExportsApiTests
         Assert.DoesNotMatch("(src|href)=\"(https?:)?//", html);
         Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
         Assert.DoesNotContain("<link", html, StringComparison.OrdinalIgnoreCase);
-        Assert.Contains("No comparison plots in this report", html, StringComparison.Ordinal);
+        Assert.Contains("<svg", html, StringComparison.Ordinal);
+        Assert.Contains("capture (black, solid)", html, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -36,9 +36,34 @@ public sealed class FitResultJsonTests
         Assert.Equal(document.TimeScale!.EstimateSeconds, read.TimeScale!.EstimateSeconds);
         Assert.Equal(document.Warnings, read.Warnings);
         Assert.Contains("a server note", read.Notes);
-        Assert.True(read.Plots.IsEmpty);
+        Assert.Equal(document.Plots.PhasePlanes.Select(p => (p.Title, p.Traces.Count)), read.Plots.PhasePlanes.Select(p => (p.Title, p.Traces.Count)));
+        Assert.Equal(document.Plots.TimeSeries.Count, read.Plots.TimeSeries.Count);
+        Assert.Equal(document.Plots.Spectra.Count, read.Plots.Spectra.Count);
+        Assert.Equal(document.Invariants.Select(i => i.Name), read.Invariants.Select(i => i.Name));
         Assert.Equal(report.StructureCheck.Passed, read.StructureCheck?.Passed);
         Assert.Contains(report.MappingCheck.Message, read.Notes);
+    }
+
+    [Fact]
+    public void Map_OfARealFitWithItsComparison_HasOverlaysOfEveryRoleWithinThePointLimit()
+    {
+        var design = SyntheticBoardCaptures.Design("qh-d2-dunlin.json");
+        var csv = SyntheticBoardCaptures.Csv("qh-d2-dunlin.json", new Dictionary<string, double>(), seed: 42, problemUnits: 12);
+        var capture = Patchproof.Core.Captures.CaptureReader.Read(new MemoryStream(csv), "dunlin.csv").Value;
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions(), new FakeTimeProvider()).Value;
+
+        var document = FitResultMapper.Map(report, Guid.NewGuid(), "dunlin.csv", []);
+
+        Assert.True(report.Comparison is { Computed: true }, report.Comparison?.Reason);
+        var plane = Assert.Single(document.Plots.PhasePlanes);
+        Assert.Equal([TraceRoleCode.Capture, TraceRoleCode.Nominal, TraceRoleCode.Fitted], plane.Traces.Select(t => t.Role));
+        Assert.Equal(2, document.Plots.TimeSeries.Count);
+        Assert.All(document.Plots.PhasePlanes.Concat(document.Plots.TimeSeries).SelectMany(p => p.Traces), t =>
+        {
+            Assert.Equal(t.X.Count, t.Y.Count);
+            Assert.InRange(t.X.Count, 2, ComparisonMapper.MaxPointsPerTrace);
+        });
+        Assert.Equal(report.Comparison!.Invariants.Count, document.Invariants.Count);
     }
 
     [Fact]
