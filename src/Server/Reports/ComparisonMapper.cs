@@ -1,4 +1,5 @@
 using Patchproof.Contracts.Reports;
+using Patchproof.Core.Dynamics;
 using Patchproof.Core.Reports;
 
 namespace Patchproof.Server.Reports;
@@ -6,8 +7,10 @@ namespace Patchproof.Server.Reports;
 /// <summary>Turns the core's <see cref="FitComparison"/> into the report's plots and invariants.</summary>
 internal static class ComparisonMapper
 {
-    /// <summary>The most points a trace carries on the wire (docs/web-app.md); longer series are thinned evenly.</summary>
-    public const int MaxPointsPerTrace = 20_000;
+    /// <summary>The most points a trace carries on the wire. The core's traces carry up to 20,000; a browser reading a dozen
+    /// such traces spends tens of seconds on the document alone, so they are decimated again (curves along their arc length,
+    /// time series min/max per column) and their values rounded to 6 significant digits, finer than a scope's 8-10 bits.</summary>
+    public const int MaxPointsPerTrace = 2_500;
 
     public static PlotsDocument Plots(FitComparison? comparison)
     {
@@ -18,8 +21,8 @@ internal static class ComparisonMapper
 
         var overlays = comparison.Overlays is { Computed: true } o ? o : null;
         return new PlotsDocument(
-            overlays?.PhasePlanes.Select(Panel).ToList() ?? [],
-            overlays?.TimeSeries.Select(Panel).ToList() ?? [],
+            overlays?.PhasePlanes.Select(p => Panel(p, againstTime: false)).ToList() ?? [],
+            overlays?.TimeSeries.Select(p => Panel(p, againstTime: true)).ToList() ?? [],
             ReturnMap(comparison.ReturnMap),
             comparison.Occupancy is { Computed: true } occupancy ? occupancy.Planes.Select(Density).ToList() : [],
             comparison.Spectra.Where(s => s.Computed).Select(Spectrum).ToList());
@@ -30,8 +33,22 @@ internal static class ComparisonMapper
             ? comparison.Invariants.Select(i => new InvariantDocument(i.Name, Finite(i.FromCapture), Finite(i.FromModel), i.Unit)).ToList()
             : [];
 
-    private static OverlayPlotDocument Panel(PlotPanel panel) =>
-        new(panel.Title, panel.XLabel, panel.YLabel, panel.Traces.Select(t => Role(t.Role) is { } role ? Trace(role, t.X, t.Y) : null).OfType<TraceDocument>().ToList());
+    private static OverlayPlotDocument Panel(PlotPanel panel, bool againstTime) =>
+        new(panel.Title, panel.XLabel, panel.YLabel, panel.Traces.Select(t => Role(t.Role) is { } role ? Decimated(role, t.X, t.Y, againstTime) : null).OfType<TraceDocument>().ToList());
+
+    private static TraceDocument Decimated(TraceRoleCode role, double[] x, double[] y, bool againstTime)
+    {
+        var count = Math.Min(x.Length, y.Length);
+        if (count <= MaxPointsPerTrace)
+        {
+            return Trace(role, x, y);
+        }
+
+        var series = againstTime
+            ? TraceDecimation.MinMaxPerColumn(x.AsSpan(0, count), y.AsSpan(0, count), MaxPointsPerTrace / 2)
+            : TraceDecimation.AlongCurve(x.AsSpan(0, count), y.AsSpan(0, count), MaxPointsPerTrace);
+        return Trace(role, series.X, series.Y);
+    }
 
     private static OverlayPlotDocument? ReturnMap(ReturnMapComparison? map)
     {
@@ -47,7 +64,7 @@ internal static class ComparisonMapper
 
     private static DensityDifferenceDocument Density(OccupancyPlane plane) =>
         new($"{plane.YVariable} against {plane.XVariable}: capture minus fitted", $"{plane.XVariable} (V)", $"{plane.YVariable} (V)",
-            plane.XCentres, plane.YCentres, plane.Difference.Select(row => (IReadOnlyList<double>)row).ToList());
+            Rounded(plane.XCentres), Rounded(plane.YCentres), plane.Difference.Select(row => (IReadOnlyList<double>)Rounded(row)).ToList());
 
     private static OverlayPlotDocument Spectrum(ChannelSpectrum spectrum) =>
         new($"Welch spectrum of {spectrum.Channel} ({spectrum.Variable})", "frequency (Hz)", "power spectral density (V²/Hz)",
@@ -60,13 +77,25 @@ internal static class ComparisonMapper
         var count = Math.Min(x.Length, y.Length);
         if (count <= MaxPointsPerTrace)
         {
-            return new TraceDocument(role, x[..count], y[..count]);
+            return new TraceDocument(role, Rounded(x[..count]), Rounded(y[..count]));
         }
 
-        // The core already decimates for display; this only guards the wire limit.
         var stride = (int)Math.Ceiling(count / (double)MaxPointsPerTrace);
         var indices = Enumerable.Range(0, (count + stride - 1) / stride).Select(i => i * stride).ToArray();
-        return new TraceDocument(role, indices.Select(i => x[i]).ToArray(), indices.Select(i => y[i]).ToArray());
+        return new TraceDocument(role, Rounded(indices.Select(i => x[i]).ToArray()), Rounded(indices.Select(i => y[i]).ToArray()));
+    }
+
+    private static double[] Rounded(double[] values) => values.Select(SixDigits).ToArray();
+
+    private static double SixDigits(double value)
+    {
+        if (value == 0 || !double.IsFinite(value))
+        {
+            return value;
+        }
+
+        var digits = 5 - (int)Math.Floor(Math.Log10(Math.Abs(value)));
+        return digits is >= 0 and <= 15 ? Math.Round(value, digits) : value;
     }
 
     private static TraceRoleCode? Role(string role) => role switch
