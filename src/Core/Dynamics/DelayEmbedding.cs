@@ -32,7 +32,10 @@ public sealed record DelayEmbeddingChoice(int Delay, int Dimension, DelayRule De
 /// <para>Dimension rule: the smallest m in 1 .. 10 whose fraction of false nearest neighbours is
 /// below 1 %, with Kennel et al.'s two criteria (distance ratio above R_tol = 15, or the new
 /// distance above A_tol = 2 times the series' standard deviation); if none is below 1 %, the m
-/// with the smallest fraction. Neighbours closer in time than the temporal exclusion are not
+/// with the smallest fraction. A neighbour distance below the noise floor sqrt(2 m) sigma_noise
+/// (sigma_noise from second differences, at least the quantization step / sqrt(12)) counts as that
+/// floor: two noisy copies of one state lie about that far apart, and on a quantized or noisy record
+/// the ratio test would otherwise call such pairs false in every dimension. Neighbours closer in time than the temporal exclusion are not
 /// candidates. At most 10,000 query points, spread evenly over the record, are tested for each m
 /// (the tree holds every point), which keeps the cost linear in N for long captures.</para>
 /// <para>References: 1. F. Takens, Detecting strange attractors in turbulence, Lecture Notes in
@@ -182,6 +185,7 @@ public static class DelayEmbedding
         Preconditions.CheckArgumentRange(nameof(series), usable > 2 * temporalExclusion + 2, "is too short for this dimension, delay and exclusion");
         var tree = new KdTree(cloud, usable);
         var standardDeviation = StandardDeviation(series);
+        var floor = NoiseFloor(series) * Math.Sqrt(2.0 * dimension);
         var stride = Math.Max(1, usable / MaximumFalseNeighbourQueries);
         var tested = 0;
         var falseCount = 0;
@@ -194,7 +198,8 @@ public static class DelayEmbedding
             }
 
             var extra = Math.Abs(series[i + dimension * delay] - series[j + dimension * delay]);
-            var distance = Math.Sqrt(d2);
+            // Below the noise floor a neighbour's distance is noise, not geometry: ratios against it are meaningless.
+            var distance = Math.Max(Math.Sqrt(d2), floor);
             var grownDistance = Math.Sqrt(d2 + extra * extra);
             var isFalse = (distance > 0 ? extra / distance > DistanceRatioTolerance : extra > 0)
                 || grownDistance / standardDeviation > AttractorSizeTolerance;
@@ -206,6 +211,26 @@ public static class DelayEmbedding
         }
 
         return tested == 0 ? 0 : (double)falseCount / tested;
+    }
+
+    /// <summary>The series' noise standard deviation: from second differences (see <see cref="ReturnMaps.NoiseStandardDeviation"/>), and never below the quantization step / √12.</summary>
+    /// <param name="series">The scalar series.</param>
+    public static double NoiseFloor(ReadOnlySpan<double> series)
+    {
+        var sorted = series.ToArray();
+        Array.Sort(sorted);
+        var step = double.PositiveInfinity;
+        for (var i = 1; i < sorted.Length; i++)
+        {
+            var gap = sorted[i] - sorted[i - 1];
+            if (gap > 0 && gap < step)
+            {
+                step = gap;
+            }
+        }
+
+        var quantization = double.IsFinite(step) ? step / Math.Sqrt(12) : 0;
+        return Math.Max(ReturnMaps.NoiseStandardDeviation(series), quantization);
     }
 
     /// <summary>The first lag at which the autocorrelation of <paramref name="series"/> is below 1/e, or -1 if none up to <paramref name="maximumLag"/>.</summary>
