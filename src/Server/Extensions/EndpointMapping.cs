@@ -9,6 +9,7 @@ internal static class EndpointMapping
     {
         app.MapHealthEndpoints();
         app.MapBenchEndpoints();
+        app.MapProbeCalibrationEndpoints();
         app.MapBoardEndpoints();
         app.MapDesignEndpoints();
         app.MapCaptureEndpoints();

@@ -32,6 +32,7 @@ internal static class ServiceRegistration
             services.GetRequiredService<IConfiguration>().GetConnectionString(DatabaseProvider.PostgresConnectionName),
             services.GetRequiredService<IOptions<PatchproofOptions>>().Value.DataFolderPath));
         builder.Services.AddSingleton<CaptureStore>();
+        builder.Services.AddSingleton<ProbeCalibrationStore>();
         builder.Services.AddSingleton<IDesignDocumentValidator, DesignFileValidator>();
         builder.Services.AddScoped<DemoScenarioSeeder>();
         builder.Services.AddHostedService<DatabaseStartup>();

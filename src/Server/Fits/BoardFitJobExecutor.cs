@@ -3,6 +3,7 @@ using Patchproof.Core.Captures;
 using Patchproof.Core.Circuits.Files;
 using Patchproof.Core.Reports;
 using Patchproof.Server.Reports;
+using Patchproof.Server.Storage;
 
 namespace Patchproof.Server.Fits;
 
@@ -11,9 +12,10 @@ namespace Patchproof.Server.Fits;
 /// The core fits one capture at a time; a fit of several captures fits the first and says so in the result's notes.
 /// The channels are taken in file order for the design's variables (sign +1), as the core does when no mapping is given.
 /// Progress is the core's: its stages, then one report per Levenberg-Marquardt iteration; a cancel request stops the
-/// fit between iterations.
+/// fit between iterations. When the board's bench has a probe calibration (docs/probe-calibration.md), the newest one
+/// sets the probe gains, and the result's notes say so.
 /// </remarks>
-internal sealed class BoardFitJobExecutor(TimeProvider clock) : IFitJobExecutor
+internal sealed class BoardFitJobExecutor(TimeProvider clock, ProbeCalibrationStore? calibrations = null) : IFitJobExecutor
 {
     private const double ReadingShare = 0.05;
     private const double FittingShare = 0.93;
@@ -48,10 +50,12 @@ internal sealed class BoardFitJobExecutor(TimeProvider clock) : IFitJobExecutor
             return FitJobOutcome.Failed("The capture cannot be read: " + Describe(read.Errors));
         }
 
+        var calibration = input.BenchId is { } benchId ? calibrations?.Newest(benchId) : null;
         var options = new BoardFitOptions
         {
             Cancellation = cancellationToken,
             Progress = new StageProgress(progress),
+            Calibration = calibration?.Calibration,
         };
         var fitted = BoardFitter.Fit(board, capture, options, clock);
         if (!fitted.TryGetValue(out var report))
@@ -60,9 +64,16 @@ internal sealed class BoardFitJobExecutor(TimeProvider clock) : IFitJobExecutor
         }
 
         progress.Report(new FitJobProgress(0.99, "writing the report"));
-        var notes = input.Captures.Count > 1
-            ? new[] { $"The fit used {first.FileName}, the first of the {input.Captures.Count} captures chosen; fit the others one at a time to compare them." }
-            : [];
+        var notes = new List<string>();
+        if (input.Captures.Count > 1)
+        {
+            notes.Add($"The fit used {first.FileName}, the first of the {input.Captures.Count} captures chosen; fit the others one at a time to compare them.");
+        }
+
+        if (calibration is { } used)
+        {
+            notes.Add($"Probe gains from the bench's newest probe calibration (uploaded {used.UploadedAt:yyyy-MM-dd HH:mm} UTC, reference {used.Calibration.ReferenceChannel}).");
+        }
         return FitJobOutcome.Succeeded(FitResultJson.ToElement(FitResultMapper.Map(report, first.CaptureId, first.FileName, notes)));
     }
 

@@ -22,7 +22,8 @@ internal interface IFitJobExecutor
 /// <param name="DesignDocument">The design document (JSON text).</param>
 /// <param name="Captures">The captures in the order requested.</param>
 /// <param name="Attempt">1 on the first run; higher when a previous process stopped mid-fit.</param>
-internal sealed record FitJobInput(Guid FitId, Guid BoardId, int DesignVersion, string DesignDocument, IReadOnlyList<FitJobCapture> Captures, int Attempt);
+/// <param name="BenchId">The board's bench, whose newest probe calibration the fit uses; null when unknown.</param>
+internal sealed record FitJobInput(Guid FitId, Guid BoardId, int DesignVersion, string DesignDocument, IReadOnlyList<FitJobCapture> Captures, int Attempt, Guid? BenchId = null);
 
 /// <summary>A capture as a fit sees it: the file as received and the parsed samples beside it.</summary>
 /// <param name="CaptureId">The capture.</param>
