@@ -83,6 +83,11 @@ public static class PartDiagnoser
                 NoteWhatACalibrationBuys(model, problem.Columns, loose, resolutions, options, notes);
             }
 
+            if (outcome is DiagnosisOutcome.WithinTolerance && uncalibrated.Count > 0)
+            {
+                summary += HiddenByProbeGains(model, problem.Columns, loose, resolutions, options);
+            }
+
             findings = findings.Select(finding => WithGainDependence(model, problem.Columns, groups, winner, loose, finding, calibrated, options)).ToList();
             if (findings.Any(finding => finding.GainDependence?.DependsOnProbeGains == true))
             {
@@ -290,6 +295,21 @@ public static class PartDiagnoser
         }
 
         return new DiagnosisProblem(rows, columns, problem.Covariance);
+    }
+
+    /// <summary>For a within-tolerance verdict: the parts that in-tolerance probe gains can mimic and that this capture cannot
+    /// check to their band, so that "within tolerance" is not read as a clean bill for them.</summary>
+    private static string HiddenByProbeGains(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, IReadOnlyList<int> loose, IReadOnlyList<PartResolution> resolutions, DiagnosisOptions options)
+    {
+        var hidden = columns.Select((column, j) => (column, j))
+            .Where(pair => pair.column.Kind is DiagnosisColumnKind.PartValue && model.IsObservable(pair.j) && model.SpanFit(pair.j, loose).CosineSquared >= options.GainMimicCosineSquared)
+            .Select(pair => (pair.column, sd: resolutions.First(r => r.ColumnId == pair.column.Id).FreedSd))
+            .Where(pair => options.IntervalSigmas * pair.sd > pair.column.ToleranceBand)
+            .ToList();
+        return hidden.Count == 0
+            ? ""
+            : string.Create(CultureInfo.InvariantCulture,
+                $" But uncalibrated probe gains could hide a deviation of up to ± {100 * options.IntervalSigmas * hidden.Max(pair => pair.sd):0.0} % in {string.Join(", ", hidden.Select(pair => pair.column.Id))}: record a calibration capture to check them (docs/probe-calibration.md).");
     }
 
     /// <summary>Names the parts that probe gains can mimic and what a calibration would resolve them to.</summary>

@@ -69,6 +69,23 @@ public sealed class BoardFitterCalibrationTests
         Assert.NotEqual(DiagnosisOutcome.PartsNamed, without.Diagnosis.Outcome);
         Assert.Equal(DiagnosisOutcome.WithinTolerance, with.Diagnosis.Outcome);
         Assert.Empty(with.Diagnosis.Findings);
+        Assert.DoesNotContain("uncalibrated probe gains could hide", with.Diagnosis.Summary, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_MultiplierFaultHiddenByUncalibratedProbeGains_WithinToleranceSaysWhatTheGainsCouldHide()
+    {
+        // -2 % on x, +2 % on y and z: through the probes the x·y term reads only about 4 % low, which in-tolerance probe
+        // gains and parts explain, so the uncalibrated verdict is "within tolerance"; it must not read as a clean bill for M2.
+        var (design, asBuilt, multiplier) = BoardWithLowMultiplier();
+        var capture = SyntheticBoardCapture.Simulate(asBuilt, seed: 32, probeGains: [0.98, 1.02, 1.02]);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions(), Clock).Value;
+
+        Assert.DoesNotContain(report.Diagnosis.Findings, f => f.Verdict is PartVerdict.OutOfTolerance or PartVerdict.Drifted);
+        Assert.Equal(DiagnosisOutcome.WithinTolerance, report.Diagnosis.Outcome);
+        Assert.Contains("uncalibrated probe gains could hide", report.Diagnosis.Summary, StringComparison.Ordinal);
+        Assert.Contains(multiplier, report.Diagnosis.Summary, StringComparison.Ordinal);
     }
 
     [Fact]
