@@ -53,7 +53,9 @@ public sealed class BoardFitterCalibrationTests
         Assert.False(finding.GainDependence?.DependsOnProbeGains ?? false);
     }
 
-    [Fact(Skip = "Not met: a calibration measures gains relative to the reference probe only; the reference's own error (CH1 +2 % here) moves both product terms and leaves M2 about 1.4 % off (0.986 of its value), inside the stated interval but outside the 1 % bar. Needs an absolute reference (a signal of known amplitude).")]
+    // The bar. A relative calibration cannot see the reference probe's own error (CH1 +2 % here); the healthy
+    // multiplier's tolerance pins it, so this lands about 0.8 % off: close to the bar, not far inside it.
+    [Fact]
     public void Fit_MultiplierSixPercentLowWithCalibrationCapture_NamesTheEffectiveScaleWithinOnePercent()
     {
         var (design, asBuilt, multiplier) = BoardWithLowMultiplier();
