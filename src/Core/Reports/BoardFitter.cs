@@ -234,13 +234,17 @@ public static class BoardFitter
         return start is not null && start.RSquared.All(r => r >= 0.9) ? start : null;
     }
 
+    /// <summary>Each variable's design terms, constants left out, as regression terms over the variables' indices.</summary>
+    private static List<IReadOnlyList<RegressionTerm>> RegressionTerms(IReadOnlyList<DesignTerm> terms, List<string> variables) =>
+        variables.Select(v => (IReadOnlyList<RegressionTerm>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant)
+            .Select(t => new RegressionTerm(t.Basis.ToString(), t.Basis.Variables.Select(name => variables.IndexOf(name)).ToList())).ToList()).ToList();
+
     /// <summary>The mapping check over the recorded channels, in problem time units, with the structure check's filter.</summary>
     private static MappingCheck CheckMapping(BoardDesign design, IReadOnlyList<DesignTerm> terms, List<string> variables, List<ShootingChannel> channels, double intervalSeconds, StructureCheckResult structure)
     {
         var ordered = channels.OrderBy(c => c.StateIndex).ToList();
         var samples = ordered.Select(c => c.Samples.ToArray()).ToList();
-        var equations = variables.Select(v => (IReadOnlyList<RegressionTerm>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant)
-            .Select(t => new RegressionTerm(t.Basis.ToString(), t.Basis.Variables.Select(name => variables.IndexOf(name)).ToList())).ToList()).ToList();
+        var equations = RegressionTerms(terms, variables);
         var nominal = variables.Select(v => (IReadOnlyList<double>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant).Select(t => t.NominalCoefficient).ToList()).ToList();
         var options = new EquationErrorOptions { Filter = structure.Performed ? (structure.FilterHalfWidth, structure.FilterOrder) : null };
         var ranking = ChannelMappingSearch.Rank(samples, intervalSeconds / design.TimeScaleSeconds, equations, nominal, options);
@@ -266,8 +270,7 @@ public static class BoardFitter
         }
 
         var tau = design.TimeScaleSeconds;
-        var equations = variables.Select(v => (IReadOnlyList<RegressionTerm>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant)
-            .Select(t => new RegressionTerm(t.Basis.ToString(), t.Basis.Variables.Select(name => variables.IndexOf(name)).ToList())).ToList()).ToList();
+        var equations = RegressionTerms(terms, variables);
         var nominal = variables.Select(v => (IReadOnlyList<double>)terms.Where(t => t.Variable == v && !t.Basis.IsConstant).Select(t => t.NominalCoefficient * tau).ToList()).ToList();
         return StructureCheck.Run(states, variables, intervalSeconds / tau, equations, nominal, fitOptions: new EquationErrorOptions { Excluded = excluded });
     }

@@ -5,8 +5,7 @@ namespace Patchproof.Core.Models.Library;
 /// <para>The jerk equation x''' = -A x'' + (x')^2 - x with A = 2.017; Sprott gives the chaotic range
 /// 2.0168 &lt; A &lt; 2.0577. Its Lyapunov exponents sum to -A.</para>
 /// <para>References: 1. J. C. Sprott, "Simplest dissipative chaotic flow", Phys. Lett. A 228:271-274
-/// (1997), doi:10.1016/S0375-9601(97)00088-1 (equation and A = 2.017 as quoted on a public page of
-/// Lyapunov spectra that cites it; the range from Sprott's lecture slides).</para>
+/// (1997), doi:10.1016/S0375-9601(97)00088-1 (the equation and A = 2.017; the chaotic range is from memory).</para>
 /// </remarks>
 public sealed class SprottJerkSystem : IOdeSystem
 {
