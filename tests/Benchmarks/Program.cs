@@ -11,5 +11,10 @@ if (args.Length > 0 && args[0] == "comparison-timings")
     return Patchproof.Benchmarks.Reports.FitComparisonBenchmarks.PrintTimings(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 3);
 }
 
+if (args.Length > 0 && args[0] == "fit-timings")
+{
+    return Patchproof.Benchmarks.Estimation.WholeFitBenchmarks.PrintTimings(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 3);
+}
+
 BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
 return 0;

@@ -82,6 +82,12 @@ internal static class DesignSimulateVerb
             return PatchproofCommandLine.BadInput;
         }
 
+        if (!TryProbeGains(settings.ProbeGains, channelPairs.Select(pair => pair.Item1).ToList(), out var probeGains, out var gainError))
+        {
+            console.Error.WriteLine($"--probe-gains {settings.ProbeGains}: {gainError}");
+            return PatchproofCommandLine.BadInput;
+        }
+
         if (!DesignVerb.TryPairs(settings.Windows, out var windowPairs))
         {
             console.Error.WriteLine($"--window {settings.Windows}: expected CHANNEL=SPAN or CHANNEL=SPAN@CENTER, for example CH3=10V@5V.");
@@ -135,7 +141,7 @@ internal static class DesignSimulateVerb
             }
 
             var offset = settings.ProbeOffsets == "none" ? 0 : Math.Round(Gaussian(random) * 0.010, 4);
-            channels.Add(new ScopeChannelSettings(name, variable, sign, 1, offset, center, span));
+            channels.Add(new ScopeChannelSettings(name, variable, sign, probeGains.GetValueOrDefault(name, 1), offset, center, span));
         }
 
         var trigger = settings.TriggerFraction is { } fraction
@@ -185,6 +191,37 @@ internal static class DesignSimulateVerb
         return warnings == 0 ? PatchproofCommandLine.Success : DesignVerb.DoneWithWarnings;
     }
 
+    /// <summary>Reads CH1=+1.5%,CH2=-0.8% into gains (1.015, 0.992) of the named channels.</summary>
+    private static bool TryProbeGains(string? text, IReadOnlyList<string> channelNames, out Dictionary<string, double> gains, out string error)
+    {
+        gains = new Dictionary<string, double>(StringComparer.OrdinalIgnoreCase);
+        error = string.Empty;
+        if (!DesignVerb.TryPairs(text, out var pairs))
+        {
+            error = "expected CHANNEL=PERCENT, for example CH1=+1.5%,CH2=-0.8%.";
+            return false;
+        }
+
+        foreach (var (name, value) in pairs)
+        {
+            if (!channelNames.Contains(name, StringComparer.OrdinalIgnoreCase))
+            {
+                error = $"no channel '{name}' is recorded (channels: {string.Join(", ", channelNames)}).";
+                return false;
+            }
+
+            if (!value.EndsWith('%') || !double.TryParse(value.AsSpan(0, value.Length - 1), NumberStyles.Float, CultureInfo.InvariantCulture, out var percent) || Math.Abs(percent) >= 50)
+            {
+                error = $"'{value}' for {name}: expected a percentage between -50% and +50%, for example +1.5%.";
+                return false;
+            }
+
+            gains[name] = 1 + (percent / 100);
+        }
+
+        return true;
+    }
+
     private static (double Span, double Center) AutoWindow(IEnumerable<double> volts)
     {
         var low = double.PositiveInfinity;
@@ -210,7 +247,7 @@ internal static class DesignSimulateVerb
         return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
     }
 
-    private sealed record SimulateSettings(string? Faults, string Duration, string? Settle, int Samples, string? Channels, string Noise, int Seed, string? Windows, string ProbeOffsets, double? TriggerFraction, double PartSpread, string Style, string Output);
+    private sealed record SimulateSettings(string? Faults, string Duration, string? Settle, int Samples, string? Channels, string Noise, int Seed, string? Windows, string ProbeOffsets, string? ProbeGains, double? TriggerFraction, double PartSpread, string Style, string Output);
 
     private sealed class SimulateOptions
     {
@@ -223,12 +260,13 @@ internal static class DesignSimulateVerb
         private readonly Option<int> seed = new("--seed") { Description = "Random seed: the same seed writes the same file (default 1).", DefaultValueFactory = _ => 1 };
         private readonly Option<string?> windows = new("--window") { Description = "Scope windows as CH3=10V@5V (span, optional centre); default fitted to each trace." };
         private readonly Option<string> probeOffsets = new("--probe-offsets") { Description = "auto (random, about 10 mV, from the seed) or none.", DefaultValueFactory = _ => "auto" };
+        private readonly Option<string?> probeGains = new("--probe-gains") { Description = "Probe gain errors as CH1=+1.5%,CH2=-0.8% (default none: every probe exact)." };
         private readonly Option<double?> trigger = new("--trigger") { Description = "Where capture time 0 falls, as a fraction of the record (default random between 0.1 and 0.4)." };
         private readonly Option<double> partSpread = new("--part-spread") { Description = "Healthy spread of every part: a Gaussian with sd = SPREAD * tolerance / 3 (default 0: nominal).", DefaultValueFactory = _ => 0.0 };
         private readonly Option<string> style = new("--style") { Description = "CSV dialect: comma, semicolon, semicolon-decimal-comma, units-row, tab.", DefaultValueFactory = _ => "comma" };
         private readonly Option<string> output = new("--out") { Description = "The capture file to write.", Required = true };
 
-        public IEnumerable<Option> All => [faults, duration, settle, samples, channels, noise, seed, windows, probeOffsets, trigger, partSpread, style, output];
+        public IEnumerable<Option> All => [faults, duration, settle, samples, channels, noise, seed, windows, probeOffsets, probeGains, trigger, partSpread, style, output];
 
         public SimulateSettings Read(ParseResult parse) => new(
             parse.GetValue(faults),
@@ -240,6 +278,7 @@ internal static class DesignSimulateVerb
             parse.GetValue(seed),
             parse.GetValue(windows),
             parse.GetValue(probeOffsets)!,
+            parse.GetValue(probeGains),
             parse.GetValue(trigger),
             parse.GetValue(partSpread),
             parse.GetValue(style)!,

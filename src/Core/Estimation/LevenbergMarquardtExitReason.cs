@@ -20,14 +20,18 @@ public enum LevenbergMarquardtExitReason
 
     /// <summary>Not started: the residuals were not finite at the initial point.</summary>
     NonFiniteInitialCost,
+
+    /// <summary>Converged: a nearly undamped step changed the cost by less than <see cref="LevenbergMarquardtOptions.VarianceScaledCostTolerance"/> residual variances, so it moved every estimate by a small fraction of its standard error.</summary>
+    ConvergedWithinUncertainty,
 }
 
 /// <summary>Extensions on <see cref="LevenbergMarquardtExitReason"/>.</summary>
 public static class LevenbergMarquardtExitReasonExtensions
 {
-    /// <summary>True for the three convergence criteria.</summary>
+    /// <summary>True for the convergence criteria.</summary>
     /// <param name="reason">The exit reason.</param>
     /// <returns>Whether the loop converged.</returns>
     public static bool IsConverged(this LevenbergMarquardtExitReason reason) =>
-        reason is LevenbergMarquardtExitReason.ConvergedOnGradient or LevenbergMarquardtExitReason.ConvergedOnStep or LevenbergMarquardtExitReason.ConvergedOnCost;
+        reason is LevenbergMarquardtExitReason.ConvergedOnGradient or LevenbergMarquardtExitReason.ConvergedOnStep or LevenbergMarquardtExitReason.ConvergedOnCost
+            or LevenbergMarquardtExitReason.ConvergedWithinUncertainty;
 }

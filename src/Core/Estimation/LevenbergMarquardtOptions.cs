@@ -32,6 +32,11 @@ public enum FiniteDifferenceScheme
 /// step: ||D delta|| &lt;= <see cref="RelativeStepTolerance"/> (||D p|| + <see cref="RelativeStepTolerance"/>) with
 /// D = diag(sqrt(d_j));
 /// cost: both the actual and the predicted reduction are at most <see cref="RelativeCostTolerance"/> * S;
+/// statistical (when <see cref="VarianceScaledCostTolerance"/> is set): an accepted step whose damping term is at most a
+/// tenth of its curvature term reduced the cost, actually and as predicted, by at most tau S/nu with nu =
+/// <see cref="ResidualDegreesOfFreedom"/>. With sigma^2 = S/nu, the step delta then has delta' H delta / sigma^2 &lt;= tau, and by
+/// Cauchy-Schwarz every linear combination a'p moved by at most sqrt(tau) of its standard error sigma sqrt(a' H^-1 a);
+/// further iterations would only polish digits the data do not resolve;
 /// or the iteration cap.</para>
 /// <para>Defaults: tolerances near what double precision resolves (1e-10 step, 1e-14 cost, 1e-12 gradient), 1000
 /// iterations, initial lambda 1e-3, <see cref="DampingScaling.MarquardtRunningMaximum"/>, central differences.</para>
@@ -59,6 +64,12 @@ public sealed record LevenbergMarquardtOptions
     /// <summary>The finite-difference scheme used when no Jacobian is supplied. Default <see cref="FiniteDifferenceScheme.Central"/>.</summary>
     public FiniteDifferenceScheme FiniteDifferences { get; init; } = FiniteDifferenceScheme.Central;
 
+    /// <summary>The statistical stop tau (see the remarks), positive, or null for none. Default null.</summary>
+    public double? VarianceScaledCostTolerance { get; init; }
+
+    /// <summary>nu, the residual degrees of freedom (observations minus unknowns) the statistical stop scales the cost by. Default 0 (the stop is off).</summary>
+    public int ResidualDegreesOfFreedom { get; init; }
+
     /// <summary>Told the iteration count and the cost before every iteration, on the solving thread; null for none.</summary>
     public IProgress<LevenbergMarquardtIteration>? Progress { get; init; }
 
@@ -72,6 +83,8 @@ public sealed record LevenbergMarquardtOptions
         Preconditions.CheckArgumentRange(nameof(RelativeCostTolerance), RelativeCostTolerance > 0 && double.IsFinite(RelativeCostTolerance), "must be positive and finite");
         Preconditions.CheckArgumentRange(nameof(GradientTolerance), GradientTolerance >= 0 && double.IsFinite(GradientTolerance), "must be non-negative and finite");
         Preconditions.CheckArgumentRange(nameof(MaxIterations), MaxIterations >= 1, "must be at least 1");
+        Preconditions.CheckArgumentRange(nameof(VarianceScaledCostTolerance), VarianceScaledCostTolerance is not { } tau || (tau > 0 && double.IsFinite(tau)), "must be positive and finite when set");
+        Preconditions.CheckArgumentRange(nameof(ResidualDegreesOfFreedom), ResidualDegreesOfFreedom >= 0, "must not be negative");
         Preconditions.CheckArgumentRange(nameof(InitialDamping), InitialDamping > 0 && double.IsFinite(InitialDamping), "must be positive and finite");
     }
 }

@@ -93,9 +93,10 @@ public static class LevenbergMarquardtSolver
                 continue;
             }
 
-            double predicted = 0, stepNorm = 0, pointNorm = 0;
+            double predicted = 0, dampingTerm = 0, stepNorm = 0, pointNorm = 0;
             for (var j = 0; j < count; j++)
             {
+                dampingTerm += damping[j] * step[j] * step[j];
                 predicted += -step[j] * gradient[j] + damping[j] * step[j] * step[j];
                 var root = Math.Sqrt(scale[j]);
                 stepNorm += root * step[j] * root * step[j];
@@ -114,6 +115,11 @@ public static class LevenbergMarquardtSolver
 
             if (trialFinite && ratio > AcceptanceThreshold)
             {
+                // predicted = delta' H delta + 2 lambda delta' D delta: the step is nearly Gauss-Newton when the damping term is small.
+                var withinUncertainty = options.VarianceScaledCostTolerance is { } tau && options.ResidualDegreesOfFreedom > 0
+                    && dampingTerm <= 0.1 * (predicted - (2 * dampingTerm))
+                    && actual <= tau * trialCost / options.ResidualDegreesOfFreedom
+                    && predicted <= tau * trialCost / options.ResidualDegreesOfFreedom;
                 (parameters, trial) = (trial, parameters);
                 cost = trialCost;
                 accepted++;
@@ -127,6 +133,10 @@ public static class LevenbergMarquardtSolver
                 }
 
                 UpdateScale(options.Scaling, curvature, scale, first: false);
+                if (withinUncertainty)
+                {
+                    return Finish(LevenbergMarquardtExitReason.ConvergedWithinUncertainty);
+                }
             }
             else if (!Grow())
             {

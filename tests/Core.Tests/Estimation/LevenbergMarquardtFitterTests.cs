@@ -108,6 +108,35 @@ public sealed class LevenbergMarquardtFitterTests
         Assert.True(errorLre >= required, $"standard-error LRE {errorLre:F2}");
     }
 
+    [Theory]
+    [InlineData("Misra1a", 1)]
+    [InlineData("Thurber", 1)]
+    [InlineData("Eckerle4", 2)]
+    [InlineData("Rat43", 2)]
+    [InlineData("MGH09", 2)]
+    public void Fit_StatisticalStop_EndsWithinATenthOfTheCertifiedStandardDeviations(string name, int start)
+    {
+        // NIST ITL StRD certified values and standard deviations. With tau = 0.01 the loop may stop once a nearly
+        // undamped step changes S by less than tau S / (n - p): every parameter must then lie within
+        // sqrt(tau) = 0.1 certified standard deviation of its certified value, in no more iterations than the full run.
+        var data = NistStrdDataset.Load(name);
+        var initial = data.Parameters.Select(p => start == 1 ? p.Start1 : p.Start2).ToArray();
+        var problem = Problem(name, data, analyticJacobian: true);
+        var statistical = new LevenbergMarquardtOptions { VarianceScaledCostTolerance = 0.01, ResidualDegreesOfFreedom = data.ObservationCount - initial.Length };
+
+        var fit = new LevenbergMarquardtFitter(statistical).Fit(problem, initial);
+        var full = new LevenbergMarquardtFitter().Fit(problem, initial);
+
+        output.WriteLine($"{name} start {start}: {fit.ExitReason} after {fit.Iterations} iterations (full run {full.Iterations})");
+        Assert.True(fit.IsConverged, fit.ExitReason.ToString());
+        Assert.InRange(fit.Iterations, 1, full.Iterations);
+        for (var k = 0; k < initial.Length; k++)
+        {
+            var certified = data.Parameters[k];
+            Assert.InRange(Math.Abs(fit.Parameters[k] - certified.Certified), 0, 0.1 * certified.CertifiedStandardDeviation);
+        }
+    }
+
     [Fact]
     public void Fit_IterationCapOfOne_ReportsMaxIterations()
     {

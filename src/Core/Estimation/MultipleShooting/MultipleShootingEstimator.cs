@@ -71,8 +71,9 @@ public static class MultipleShootingEstimator
             return (IReadOnlyList<double>)state;
         }).ToList();
         var start = problem.Pack(segmentStates, initialParameters, initialChannelOffsetsVolts?.ToArray() ?? new double[channels.Count]);
-        var outcome = LevenbergMarquardtSolver.Minimize(problem, start, options.Solver);
-        outcome = RestartWhileStalled(problem, outcome, options.Solver);
+        var solver = options.Solver with { ResidualDegreesOfFreedom = Math.Max(0, problem.UsedObservationCount - problem.ParameterCount) };
+        var outcome = LevenbergMarquardtSolver.Minimize(problem, start, solver);
+        outcome = RestartWhileStalled(problem, outcome, solver);
         var solution = outcome.Parameters;
 
         // Uncertainty at the solution: relinearize, condense, scale by the residual variance, widen for correlation.

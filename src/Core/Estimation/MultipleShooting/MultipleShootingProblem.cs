@@ -29,7 +29,12 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
     private readonly double continuityWeight;
     private readonly double[][] huberWeights;
     private readonly double[][] excludedWeights;
+    private readonly double[][] samples;
 
+    // The last linearization point and its gradient and curvature diagonal: the uncertainty asks again at the solution.
+    private double[] linearizedAt = [];
+    private double[] linearizedGradient = [];
+    private double[] linearizedCurvature = [];
     private Matrix<double>[] diagonalBlocks = [];
     private Matrix<double>[] upperBlocks = [];
     private Matrix<double>[] couplingBlocks = [];
@@ -69,6 +74,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
         continuityWeight = options.ContinuityWeightFactor / channels.Min(channel => channel.NoiseSdVolts);
         excludedWeights = channels.Select(channel => channel.Excluded is { } excluded ? excluded.Select(x => x ? 0.0 : 1.0).ToArray() : Enumerable.Repeat(1.0, sampleCount).ToArray()).ToArray();
         huberWeights = excludedWeights.Select(weights => (double[])weights.Clone()).ToArray();
+        samples = channels.Select(channel => channel.Samples.ToArray()).ToArray();
     }
 
     public int SegmentCount => boundaries.Length - 1;
@@ -86,6 +92,9 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
     public double TimeOf(int sample) => startSeconds + sample * intervalSeconds;
 
     public int ObservationCount => channels.Count * channels[0].Samples.Count;
+
+    /// <summary>Observations not excluded (clipped stretches left out).</summary>
+    public int UsedObservationCount => excludedWeights.Sum(weights => weights.Count(w => w > 0));
 
     public bool TryEvaluateCost(ReadOnlySpan<double> parameters, out double sumOfSquares)
     {
@@ -110,10 +119,17 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
 
     public bool TryLinearize(ReadOnlySpan<double> parameters, Span<double> gradient, Span<double> curvatureDiagonal)
     {
+        if (parameters.SequenceEqual(linearizedAt))
+        {
+            linearizedGradient.CopyTo(gradient);
+            linearizedCurvature.CopyTo(curvatureDiagonal);
+            return true;
+        }
+
+        linearizedAt = [];
         var unknowns = parameters.ToArray();
         var k = SegmentCount;
         var pieces = new SegmentLinearization?[k];
-        UpdateHuberWeights(unknowns);
         ForEachSegment(segment => pieces[segment] = LinearizeSegment(unknowns, segment));
         if (pieces.Any(piece => piece is null))
         {
@@ -182,6 +198,9 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
             }
         }
 
+        linearizedAt = unknowns;
+        linearizedGradient = gradient.ToArray();
+        linearizedCurvature = curvatureDiagonal.ToArray();
         return true;
     }
 
@@ -371,55 +390,78 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
             return null;
         }
 
-        var build = Matrix<double>.Build;
-        var stateBlock = build.Dense(n, n);
-        var coupling = build.Dense(n, GlobalCount);
-        var global = build.Dense(GlobalCount, GlobalCount);
-        var stateGradient = Vector<double>.Build.Dense(n);
-        var globalGradientPart = Vector<double>.Build.Dense(GlobalCount);
-        var stateRow = new double[n];
-        var globalRow = new double[GlobalCount];
+        // Per channel, the Jacobian row of a sample is -sqrt(w) [g dx_m/ds, g dx_m/dp, 1, x_m] (state, field
+        // parameters, offset, gain) with w the Huber weight over sigma squared. Accumulating the weighted moments of
+        // v = [dx_m/ds, dx_m/dp, x_m] once per channel and scaling by the gain afterwards keeps the per-sample work to
+        // one symmetric rank-one update of size n + P + 1.
+        var length = n + fieldParameters + 1;
+        Span<double> moments = stackalloc double[length * length];
+        Span<double> weightedSum = stackalloc double[length];
+        Span<double> weightedMisfit = stackalloc double[length];
+        Span<double> v = stackalloc double[length];
+        var stateBlock = new double[n * n];
+        var coupling = new double[n * GlobalCount];
+        var global = new double[GlobalCount * GlobalCount];
+        var stateGradient = new double[n];
+        var globalGradientPart = new double[GlobalCount];
         var first = boundaries[k];
         var lastOwned = k == SegmentCount - 1 ? boundaries[k + 1] : boundaries[k + 1] - 1;
-        for (var i = first; i <= lastOwned; i++)
+        for (var c = 0; c < channels.Count; c++)
         {
-            var local = i - first;
-            var state = solution.StateAt(local);
-            var stateSensitivity = solution.StateSensitivityAt(local);
-            var parameterSensitivity = solution.ParameterSensitivityAt(local);
-            for (var c = 0; c < channels.Count; c++)
+            moments.Clear();
+            weightedSum.Clear();
+            weightedMisfit.Clear();
+            var m = channels[c].StateIndex;
+            var gain = GainOf(unknowns, c);
+            var offset = OffsetOf(unknowns, c);
+            var sigma = channels[c].NoiseSdVolts;
+            var observed = samples[c];
+            var huber = huberWeights[c];
+            var excluded = excludedWeights[c];
+            double weightTotal = 0, misfitTotal = 0;
+            for (var i = first; i <= lastOwned; i++)
             {
-                var channel = channels[c];
-                var m = channel.StateIndex;
-                var gain = GainOf(unknowns, c);
-                var root = Math.Sqrt(huberWeights[c][i]) / channel.NoiseSdVolts;
-                var residual = root * (channel.Samples[i] - gain * state[m] - OffsetOf(unknowns, c));
-                for (var j = 0; j < n; j++)
+                var local = i - first;
+                var state = solution.StateAt(local);
+                var misfit = observed[i] - gain * state[m] - offset;
+                var size = Math.Abs(misfit / sigma);
+                huber[i] = excluded[i] * (options.HuberThreshold is { } threshold && size > threshold && double.IsFinite(size) ? threshold / size : 1);
+                var w = huber[i] / (sigma * sigma);
+                if (w == 0)
                 {
-                    stateRow[j] = -root * gain * stateSensitivity[m * n + j];
+                    continue;
                 }
 
-                Array.Clear(globalRow);
-                for (var p = 0; p < fieldParameters; p++)
+                solution.StateSensitivityAt(local).Slice(m * n, n).CopyTo(v);
+                solution.ParameterSensitivityAt(local).Slice(m * fieldParameters, fieldParameters).CopyTo(v[n..]);
+                v[length - 1] = state[m];
+                weightTotal += w;
+                misfitTotal += w * misfit;
+                for (var a = 0; a < length; a++)
                 {
-                    globalRow[p] = -root * gain * parameterSensitivity[m * fieldParameters + p];
+                    var wa = w * v[a];
+                    weightedSum[a] += wa;
+                    weightedMisfit[a] += wa * misfit;
+                    var row = moments.Slice(a * length, length);
+                    for (var b = a; b < length; b++)
+                    {
+                        row[b] += wa * v[b];
+                    }
                 }
-
-                if (offsetCount > 0)
-                {
-                    globalRow[fieldParameters + c] = -root;
-                }
-
-                var gainSlot = Array.IndexOf(gainChannels, c);
-                if (gainSlot >= 0)
-                {
-                    globalRow[fieldParameters + offsetCount + gainSlot] = -root * state[m];
-                }
-
-                Accumulate(stateBlock, coupling, global, stateGradient, globalGradientPart, stateRow, globalRow, residual);
             }
+
+            for (var a = 1; a < length; a++)
+            {
+                for (var b = 0; b < a; b++)
+                {
+                    moments[a * length + b] = moments[b * length + a];
+                }
+            }
+
+            AddChannelMoments(c, gain, moments, weightedSum, weightedMisfit, weightTotal, misfitTotal, stateBlock, coupling, global, stateGradient, globalGradientPart);
         }
 
+        var build = Matrix<double>.Build;
         var endIndex = solution.Count - 1;
         var endState = solution.StateAt(endIndex);
         var endStateSensitivity = build.Dense(n, n, (i, j) => solution.StateSensitivityAt(endIndex)[i * n + j]);
@@ -433,38 +475,98 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
             }
         }
 
-        return new SegmentLinearization(stateBlock, coupling, global, stateGradient, globalGradientPart, endStateSensitivity, endParameterSensitivity, mismatch);
+        return new SegmentLinearization(
+            build.Dense(n, n, (a, b) => stateBlock[a * n + b]),
+            build.Dense(n, GlobalCount, (a, b) => coupling[a * GlobalCount + b]),
+            build.Dense(GlobalCount, GlobalCount, (a, b) => global[a * GlobalCount + b]),
+            Vector<double>.Build.Dense(stateGradient),
+            Vector<double>.Build.Dense(globalGradientPart),
+            endStateSensitivity,
+            endParameterSensitivity,
+            mismatch);
     }
 
-    private static void Accumulate(Matrix<double> stateBlock, Matrix<double> coupling, Matrix<double> global, Vector<double> stateGradient, Vector<double> globalGradient, double[] stateRow, double[] globalRow, double residual)
+    /// <summary>Adds one channel's weighted moments (Σ w v vᵀ, Σ w v, Σ w v e, Σ w, Σ w e) to the Gauss-Newton blocks.</summary>
+    private void AddChannelMoments(
+        int c,
+        double gain,
+        ReadOnlySpan<double> moments,
+        ReadOnlySpan<double> weightedSum,
+        ReadOnlySpan<double> weightedMisfit,
+        double weightTotal,
+        double misfitTotal,
+        double[] stateBlock,
+        double[] coupling,
+        double[] global,
+        double[] stateGradient,
+        double[] globalGradient)
     {
-        var n = stateRow.Length;
-        var p = globalRow.Length;
+        var length = n + fieldParameters + 1;
+        var globals = GlobalCount;
+        var offsetSlot = offsetCount > 0 ? fieldParameters + c : -1;
+        var gainIndex = Array.IndexOf(gainChannels, c);
+        var gainSlot = gainIndex < 0 ? -1 : fieldParameters + offsetCount + gainIndex;
+        var xIndex = length - 1;
+        var g2 = gain * gain;
         for (var a = 0; a < n; a++)
         {
-            stateGradient[a] += stateRow[a] * residual;
+            stateGradient[a] -= gain * weightedMisfit[a];
             for (var b = 0; b < n; b++)
             {
-                stateBlock[a, b] += stateRow[a] * stateRow[b];
+                stateBlock[a * n + b] += g2 * moments[(a * length) + b];
             }
 
-            for (var b = 0; b < p; b++)
+            for (var p = 0; p < fieldParameters; p++)
             {
-                coupling[a, b] += stateRow[a] * globalRow[b];
+                coupling[a * globals + p] += g2 * moments[(a * length) + n + p];
+            }
+
+            if (offsetSlot >= 0)
+            {
+                coupling[a * globals + offsetSlot] += gain * weightedSum[a];
+            }
+
+            if (gainSlot >= 0)
+            {
+                coupling[a * globals + gainSlot] += gain * moments[(a * length) + xIndex];
             }
         }
 
-        for (var a = 0; a < p; a++)
+        for (var p = 0; p < fieldParameters; p++)
         {
-            if (globalRow[a] == 0)
+            globalGradient[p] -= gain * weightedMisfit[n + p];
+            for (var q = 0; q < fieldParameters; q++)
             {
-                continue;
+                global[p * globals + q] += g2 * moments[((n + p) * length) + n + q];
             }
 
-            globalGradient[a] += globalRow[a] * residual;
-            for (var b = 0; b < p; b++)
+            if (offsetSlot >= 0)
             {
-                global[a, b] += globalRow[a] * globalRow[b];
+                global[p * globals + offsetSlot] += gain * weightedSum[n + p];
+                global[offsetSlot * globals + p] += gain * weightedSum[n + p];
+            }
+
+            if (gainSlot >= 0)
+            {
+                global[p * globals + gainSlot] += gain * moments[((n + p) * length) + xIndex];
+                global[gainSlot * globals + p] += gain * moments[((n + p) * length) + xIndex];
+            }
+        }
+
+        if (offsetSlot >= 0)
+        {
+            globalGradient[offsetSlot] -= misfitTotal;
+            global[offsetSlot * globals + offsetSlot] += weightTotal;
+        }
+
+        if (gainSlot >= 0)
+        {
+            globalGradient[gainSlot] -= weightedMisfit[xIndex];
+            global[gainSlot * globals + gainSlot] += moments[(xIndex * length) + xIndex];
+            if (offsetSlot >= 0)
+            {
+                global[offsetSlot * globals + gainSlot] += weightedSum[xIndex];
+                global[gainSlot * globals + offsetSlot] += weightedSum[xIndex];
             }
         }
     }
@@ -480,7 +582,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
             for (var c = 0; c < channels.Count; c++)
             {
                 var channel = channels[c];
-                var misfit = (channel.Samples[i] - GainOf(unknowns, c) * state[channel.StateIndex] - OffsetOf(unknowns, c)) / channel.NoiseSdVolts;
+                var misfit = (samples[c][i] - GainOf(unknowns, c) * state[channel.StateIndex] - OffsetOf(unknowns, c)) / channel.NoiseSdVolts;
                 if (residuals is not null)
                 {
                     residuals[c][i] = misfit;
@@ -568,24 +670,6 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
     {
         var size = Math.Abs(misfit);
         return options.HuberThreshold is { } k && size > k ? (2 * k * size) - (k * k) : misfit * misfit;
-    }
-
-    private void UpdateHuberWeights(double[] unknowns)
-    {
-        if (options.HuberThreshold is not { } threshold)
-        {
-            return;
-        }
-
-        var residuals = ObservationResiduals(unknowns);
-        for (var c = 0; c < channels.Count; c++)
-        {
-            for (var i = 0; i < residuals[c].Length; i++)
-            {
-                var size = Math.Abs(residuals[c][i]);
-                huberWeights[c][i] = excludedWeights[c][i] * (size <= threshold || !double.IsFinite(size) ? 1 : threshold / size);
-            }
-        }
     }
 
     private OdeSolution Integrate(double[] unknowns, int k, bool withSensitivities)

@@ -36,5 +36,5 @@ public sealed record MultipleShootingResult(
     double Cost)
 {
     /// <summary>True when the solver stopped on one of its convergence tests.</summary>
-    public bool Converged => ExitReason is LevenbergMarquardtExitReason.ConvergedOnGradient or LevenbergMarquardtExitReason.ConvergedOnStep or LevenbergMarquardtExitReason.ConvergedOnCost;
+    public bool Converged => ExitReason.IsConverged();
 }
