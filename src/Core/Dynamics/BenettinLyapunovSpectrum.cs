@@ -15,6 +15,10 @@ public sealed record BenettinOptions
 
     /// <summary>Relative and absolute tolerance of the Dormand-Prince solves (default 1e-8).</summary>
     public double Tolerance { get; init; } = 1e-8;
+
+    /// <summary>Checked during the transient and before each re-orthonormalization interval: once cancelled, the computation
+    /// stops with <see cref="OperationCanceledException"/>. Default none.</summary>
+    public CancellationToken Cancellation { get; init; }
 }
 
 /// <summary>The Lyapunov spectrum of a flow by Benettin's method: variational equations and repeated QR.</summary>
@@ -45,6 +49,7 @@ public static class BenettinLyapunovSpectrum
     /// <param name="duration">Time averaged over, positive (at least one interval).</param>
     /// <param name="options">Settings; null for the defaults.</param>
     /// <exception cref="ArgumentOutOfRangeException">When the lengths, the duration or an option are out of range.</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="BenettinOptions.Cancellation"/> is cancelled.</exception>
     public static LyapunovSpectrum Compute(IOdeSystem system, ReadOnlySpan<double> initialState, ReadOnlySpan<double> parameters, double duration, BenettinOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(system);
@@ -55,7 +60,7 @@ public static class BenettinLyapunovSpectrum
         Preconditions.CheckArgumentRange(nameof(options), options.ReorthonormalizationInterval > 0 && options.Transient >= 0 && options.Tolerance > 0, "interval and tolerance must be positive, the transient not negative");
         Preconditions.CheckArgumentRange(nameof(duration), duration >= options.ReorthonormalizationInterval && double.IsFinite(duration), "must cover at least one re-orthonormalization interval");
         var parameterArray = parameters.ToImmutableArray();
-        var plain = new DormandPrince45 { RelativeTolerance = options.Tolerance, AbsoluteTolerance = options.Tolerance, KeepSteps = false, MaxSteps = int.MaxValue };
+        var plain = new DormandPrince45 { RelativeTolerance = options.Tolerance, AbsoluteTolerance = options.Tolerance, KeepSteps = false, MaxSteps = int.MaxValue, Cancellation = options.Cancellation };
         var tangent = plain with { Sensitivities = new ForwardSensitivities() };
         var state = initialState.ToArray();
         var time = 0.0;
@@ -85,6 +90,7 @@ public static class BenettinLyapunovSpectrum
         string? problem = null;
         for (; done < intervals; done++)
         {
+            options.Cancellation.ThrowIfCancellationRequested();
             var solution = OdeSolver.Solve(new OdeProblem(system, [.. state], time, time + options.ReorthonormalizationInterval, parameterArray), tangent);
             if (!solution.IsSuccess)
             {

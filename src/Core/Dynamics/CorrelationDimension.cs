@@ -26,6 +26,10 @@ public sealed record CorrelationDimensionOptions
 
     /// <summary>A radius enters the scaling region only when at least this many pairs lie within it (default 1000).</summary>
     public long MinimumPairs { get; init; } = 1000;
+
+    /// <summary>Checked every 16 reference points (each one a tree search over the whole record): once cancelled, the
+    /// estimate stops with <see cref="OperationCanceledException"/>. Default none.</summary>
+    public CancellationToken Cancellation { get; init; }
 }
 
 /// <summary>The correlation dimension with the correlation sum and the chosen scaling region behind it.</summary>
@@ -75,6 +79,7 @@ public static class CorrelationDimension
     /// <param name="sampleIntervalSeconds">dt, positive (used only for the default Theiler window).</param>
     /// <param name="options">Settings; null for the defaults.</param>
     /// <exception cref="ArgumentOutOfRangeException">When the channels differ in length or dt is not positive.</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="CorrelationDimensionOptions.Cancellation"/> is cancelled.</exception>
     public static CorrelationDimensionResult EstimateFromChannels(IReadOnlyList<double[]> channels, double sampleIntervalSeconds, CorrelationDimensionOptions? options = null)
     {
         options ??= new CorrelationDimensionOptions();
@@ -92,6 +97,7 @@ public static class CorrelationDimension
     /// <param name="trajectory">Points in time order.</param>
     /// <param name="options">Settings; null for the defaults (Theiler window 0 means none).</param>
     /// <exception cref="ArgumentOutOfRangeException">When an option is out of range.</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="CorrelationDimensionOptions.Cancellation"/> is cancelled.</exception>
     public static CorrelationDimensionResult Estimate(PointCloud trajectory, CorrelationDimensionOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
@@ -118,6 +124,11 @@ public static class CorrelationDimension
         long pairs = 0;
         for (var r = 0; r < references; r++)
         {
+            if ((r & 15) == 0)
+            {
+                options.Cancellation.ThrowIfCancellationRequested();
+            }
+
             var i = (int)(r * stride);
             tree.AccumulateWithin(trajectory.PointAt(i), i, window, logSmallest, 1 / logStep, histogram);
             pairs += n - (Math.Min(n - 1, i + window) - Math.Max(0, i - window) + 1);

@@ -90,8 +90,10 @@ public static class DelayEmbedding
     /// <param name="series">The scalar series, at least 100 samples.</param>
     /// <param name="maximumLag">The largest delay searched, in samples (at least 2); the mean period is a good choice.</param>
     /// <param name="temporalExclusion">Neighbours within this many samples of a point are not candidates (0 or more).</param>
+    /// <param name="cancellation">Checked between lags, between dimensions and within each false-neighbour search; default none.</param>
     /// <exception cref="ArgumentOutOfRangeException">When the series is too short or the arguments are out of range.</exception>
-    public static DelayEmbeddingChoice Choose(ReadOnlySpan<double> series, int maximumLag, int temporalExclusion)
+    /// <exception cref="OperationCanceledException">When <paramref name="cancellation"/> is cancelled.</exception>
+    public static DelayEmbeddingChoice Choose(ReadOnlySpan<double> series, int maximumLag, int temporalExclusion, CancellationToken cancellation = default)
     {
         Preconditions.CheckArgumentRange(nameof(series), series.Length >= 100, "needs at least 100 samples");
         Preconditions.CheckArgumentRange(nameof(maximumLag), maximumLag >= 2, "must be at least 2");
@@ -100,6 +102,7 @@ public static class DelayEmbedding
         var information = new double[lagLimit + 1];
         for (var lag = 0; lag <= lagLimit; lag++)
         {
+            cancellation.ThrowIfCancellationRequested();
             information[lag] = MutualInformationBits(series, lag);
         }
 
@@ -108,7 +111,7 @@ public static class DelayEmbedding
         var dimension = 0;
         for (var m = 1; m <= MaximumDimension && series.Length - m * delay > 2 * temporalExclusion + 10; m++)
         {
-            var fraction = FalseNeighbourFraction(series, m, delay, temporalExclusion);
+            var fraction = FalseNeighbourFraction(series, m, delay, temporalExclusion, cancellation);
             fractions.Add(fraction);
             if (fraction < FalseNeighbourThreshold)
             {
@@ -178,7 +181,9 @@ public static class DelayEmbedding
     /// <param name="dimension">m, at least 1.</param>
     /// <param name="delay">tau in samples, at least 1.</param>
     /// <param name="temporalExclusion">Neighbours within this many samples are not candidates.</param>
-    public static double FalseNeighbourFraction(ReadOnlySpan<double> series, int dimension, int delay, int temporalExclusion)
+    /// <param name="cancellation">Checked every 1024 neighbour queries; default none.</param>
+    /// <exception cref="OperationCanceledException">When <paramref name="cancellation"/> is cancelled.</exception>
+    public static double FalseNeighbourFraction(ReadOnlySpan<double> series, int dimension, int delay, int temporalExclusion, CancellationToken cancellation = default)
     {
         var cloud = Embed(series, dimension, delay);
         var usable = series.Length - dimension * delay;
@@ -191,6 +196,11 @@ public static class DelayEmbedding
         var falseCount = 0;
         for (var i = 0; i < usable; i += stride)
         {
+            if (((i / stride) & 1023) == 0)
+            {
+                cancellation.ThrowIfCancellationRequested();
+            }
+
             var (j, d2) = tree.Nearest(cloud.PointAt(i), i, temporalExclusion);
             if (j < 0)
             {

@@ -41,8 +41,10 @@ public static class OverlaySeries
     /// <param name="designs">The designs to overlay (nominal, fitted, ...).</param>
     /// <param name="restartInterval">Time between restarts in the model's time unit, at least one sample.</param>
     /// <param name="tolerance">Tolerance of the restarted solves.</param>
+    /// <param name="cancellation">Checked before each restart and during the solves; default none.</param>
     /// <exception cref="ArgumentOutOfRangeException">When the capture does not match the system or an interval is out of range.</exception>
-    public static IReadOnlyList<OverlayTraces> Build(IReadOnlyList<double[]> capture, double sampleInterval, IOdeSystem system, IReadOnlyList<OverlayDesign> designs, double restartInterval, double tolerance = 1e-8)
+    /// <exception cref="OperationCanceledException">When <paramref name="cancellation"/> is cancelled.</exception>
+    public static IReadOnlyList<OverlayTraces> Build(IReadOnlyList<double[]> capture, double sampleInterval, IOdeSystem system, IReadOnlyList<OverlayDesign> designs, double restartInterval, double tolerance = 1e-8, CancellationToken cancellation = default)
     {
         ArgumentNullException.ThrowIfNull(capture);
         ArgumentNullException.ThrowIfNull(system);
@@ -68,8 +70,9 @@ public static class OverlaySeries
             var restarts = new List<double>();
             for (var start = 0; start < n - 1; start += piece)
             {
+                cancellation.ThrowIfCancellationRequested();
                 var count = Math.Min(piece + 1, n - start);
-                var part = RestartedSimulation.Run(system, design.Parameters, capture, sampleInterval, start, count, tolerance);
+                var part = RestartedSimulation.Run(system, design.Parameters, capture, sampleInterval, start, count, tolerance, cancellation);
                 restarts.Add(start * sampleInterval);
                 for (var c = 0; c < simulated.Length; c++)
                 {

@@ -20,6 +20,9 @@ public sealed record PredictabilityOptions
 
     /// <summary>The state variables the deviation is taken over; null for all. A record whose hidden states were reconstructed scores only the recorded ones.</summary>
     public IReadOnlyList<int>? ScoredStates { get; init; }
+
+    /// <summary>Checked before each restart and during its solve: once cancelled, the measurement stops with <see cref="OperationCanceledException"/>. Default none.</summary>
+    public CancellationToken Cancellation { get; init; }
 }
 
 /// <summary>How long simulations restarted from the record's state stay within the band around it.</summary>
@@ -64,6 +67,7 @@ public static class PredictabilityHorizon
     /// <param name="largestExponent">lambda_1 per model time unit, or NaN when unknown.</param>
     /// <param name="options">Settings; null for the defaults.</param>
     /// <exception cref="ArgumentOutOfRangeException">When the record does not match the system or is shorter than the maximum horizon.</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="PredictabilityOptions.Cancellation"/> is cancelled.</exception>
     public static PredictabilityHorizonResult Measure(IOdeSystem system, ReadOnlySpan<double> parameters, IReadOnlyList<double[]> reference, double sampleInterval, double secondsPerTimeUnit, double largestExponent, PredictabilityOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(system);
@@ -87,9 +91,10 @@ public static class PredictabilityHorizon
         var span = n - horizonSamples;
         for (var k = 0; k < restarts; k++)
         {
+            options.Cancellation.ThrowIfCancellationRequested();
             var start = restarts == 1 ? 0 : (int)((long)k * span / (restarts - 1));
             restartTimes[k] = start * sampleInterval;
-            var simulated = RestartedSimulation.Run(system, parameterArray, reference, sampleInterval, start, horizonSamples, options.Tolerance);
+            var simulated = RestartedSimulation.Run(system, parameterArray, reference, sampleInterval, start, horizonSamples, options.Tolerance, options.Cancellation);
             var reached = simulated[0].Length;
             var exit = -1;
             for (var j = 0; j < reached && exit < 0; j++)

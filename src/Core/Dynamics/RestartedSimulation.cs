@@ -8,7 +8,8 @@ namespace Patchproof.Core.Dynamics;
 internal static class RestartedSimulation
 {
     /// <summary>The simulated channels for samples start .. start + count - 1 (fewer if the solve stopped early), or an empty result when it failed at once.</summary>
-    public static double[][] Run(IOdeSystem system, ImmutableArray<double> parameters, IReadOnlyList<double[]> reference, double sampleInterval, int start, int count, double tolerance)
+    /// <exception cref="OperationCanceledException">When <paramref name="cancellation"/> is cancelled during the solve.</exception>
+    public static double[][] Run(IOdeSystem system, ImmutableArray<double> parameters, IReadOnlyList<double[]> reference, double sampleInterval, int start, int count, double tolerance, CancellationToken cancellation = default)
     {
         var n = system.StateCount;
         var initial = new double[n];
@@ -19,7 +20,7 @@ internal static class RestartedSimulation
 
         var startTime = start * sampleInterval;
         var problem = new OdeProblem(system, [.. initial], startTime, startTime + (count - 1) * sampleInterval, parameters);
-        var solution = OdeSolver.Solve(problem, new DormandPrince45 { RelativeTolerance = tolerance, AbsoluteTolerance = tolerance, SampleInterval = sampleInterval, MaxSteps = 10_000_000 });
+        var solution = OdeSolver.Solve(problem, new DormandPrince45 { RelativeTolerance = tolerance, AbsoluteTolerance = tolerance, SampleInterval = sampleInterval, MaxSteps = 10_000_000, Cancellation = cancellation });
         var samples = Math.Min(count, solution.Count);
         var channels = new double[n][];
         for (var c = 0; c < n; c++)

@@ -14,6 +14,10 @@ public sealed record RosensteinOptions
 
     /// <summary>The fit ends where the curve has risen by this fraction of its total rise (default 0.6).</summary>
     public double UpperRiseFraction { get; init; } = 0.6;
+
+    /// <summary>Checked while the embedding is chosen and every 1024 reference points of the neighbour search and the
+    /// divergence curve: once cancelled, the estimate stops with <see cref="OperationCanceledException"/>. Default none.</summary>
+    public CancellationToken Cancellation { get; init; }
 }
 
 /// <summary>The largest Lyapunov exponent from data, with the divergence curve and the fitted region behind it.</summary>
@@ -70,6 +74,7 @@ public static class RosensteinLyapunov
     /// <param name="sampleIntervalSeconds">dt, positive.</param>
     /// <param name="options">Settings; null for the defaults.</param>
     /// <exception cref="ArgumentOutOfRangeException">When dt is not positive.</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="RosensteinOptions.Cancellation"/> is cancelled.</exception>
     public static RosensteinResult EstimateFromSeries(ReadOnlySpan<double> series, double sampleIntervalSeconds, RosensteinOptions? options = null)
     {
         options ??= new RosensteinOptions();
@@ -80,7 +85,7 @@ public static class RosensteinLyapunov
         }
 
         var exclusion = options.TemporalExclusionSamples > 0 ? options.TemporalExclusionSamples : MeanPeriodSamples(series, sampleIntervalSeconds);
-        var embedding = DelayEmbedding.Choose(series, Math.Max(2, exclusion), exclusion);
+        var embedding = DelayEmbedding.Choose(series, Math.Max(2, exclusion), exclusion, options.Cancellation);
         var cloud = DelayEmbedding.Embed(series, embedding.Dimension, embedding.Delay);
         return Estimate(cloud, sampleIntervalSeconds, options with { TemporalExclusionSamples = exclusion }) with { Embedding = embedding };
     }
@@ -90,6 +95,7 @@ public static class RosensteinLyapunov
     /// <param name="sampleIntervalSeconds">dt, positive.</param>
     /// <param name="options">Settings; null for the defaults.</param>
     /// <exception cref="ArgumentOutOfRangeException">When dt is not positive or the channels differ in length.</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="RosensteinOptions.Cancellation"/> is cancelled.</exception>
     public static RosensteinResult EstimateFromChannels(IReadOnlyList<double[]> channels, double sampleIntervalSeconds, RosensteinOptions? options = null)
     {
         options ??= new RosensteinOptions();
@@ -108,6 +114,7 @@ public static class RosensteinLyapunov
     /// <param name="sampleIntervalSeconds">dt, positive.</param>
     /// <param name="options">Settings; the temporal exclusion must be given (positive) or is taken as 1 sample.</param>
     /// <exception cref="ArgumentOutOfRangeException">When dt is not positive or a rise fraction is outside (0, 1).</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="RosensteinOptions.Cancellation"/> is cancelled.</exception>
     public static RosensteinResult Estimate(PointCloud trajectory, double sampleIntervalSeconds, RosensteinOptions options)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
@@ -135,10 +142,10 @@ public static class RosensteinLyapunov
             {
                 tree = new KdTree(trajectory, usable);
                 treeCount = usable;
-                FindNeighbours(trajectory, tree, exclusion, neighbours);
+                FindNeighbours(trajectory, tree, exclusion, neighbours, options.Cancellation);
             }
 
-            (curve, references) = DivergenceCurve(trajectory, neighbours, usable, length, Stride(usable));
+            (curve, references) = DivergenceCurve(trajectory, neighbours, usable, length, Stride(usable), options.Cancellation);
             if (options.CurveLengthSamples > 0 || length >= maximumLength || HasLevelledOff(curve))
             {
                 break;
@@ -171,17 +178,22 @@ public static class RosensteinLyapunov
 
     private static int Stride(int usable) => Math.Max(1, (usable + MaximumReferencePoints - 1) / MaximumReferencePoints);
 
-    private static void FindNeighbours(PointCloud trajectory, KdTree tree, int exclusion, int[] neighbours)
+    private static void FindNeighbours(PointCloud trajectory, KdTree tree, int exclusion, int[] neighbours, CancellationToken cancellation)
     {
         var stride = Stride(tree.Count);
         for (var j = 0; j < tree.Count; j += stride)
         {
+            if (((j / stride) & 1023) == 0)
+            {
+                cancellation.ThrowIfCancellationRequested();
+            }
+
             var (index, d2) = tree.Nearest(trajectory.PointAt(j), j, exclusion);
             neighbours[j] = d2 > 0 ? index : -1;
         }
     }
 
-    private static (double[] Curve, int References) DivergenceCurve(PointCloud trajectory, int[] neighbours, int usable, int length, int stride)
+    private static (double[] Curve, int References) DivergenceCurve(PointCloud trajectory, int[] neighbours, int usable, int length, int stride, CancellationToken cancellation)
     {
         var sums = new double[length];
         var counts = new int[length];
@@ -198,6 +210,11 @@ public static class RosensteinLyapunov
         var inBlock = 0;
         for (var j = 0; j < usable; j += stride)
         {
+            if (((j / stride) & 1023) == 0)
+            {
+                cancellation.ThrowIfCancellationRequested();
+            }
+
             var neighbour = neighbours[j];
             if (neighbour < 0)
             {

@@ -38,8 +38,10 @@ public static class WelchSpectrum
     /// <param name="signal">The samples (at least 2, finite).</param>
     /// <param name="sampleIntervalSeconds">The sample interval dt, positive.</param>
     /// <param name="segmentLength">Samples per segment, even, 2 .. N; 0 picks <see cref="DefaultSegmentLength"/>.</param>
+    /// <param name="cancellation">Checked every 16 segments; default none.</param>
     /// <exception cref="ArgumentOutOfRangeException">When the interval or the segment length is out of range.</exception>
-    public static PowerSpectrum Estimate(ReadOnlySpan<double> signal, double sampleIntervalSeconds, int segmentLength = 0)
+    /// <exception cref="OperationCanceledException">When <paramref name="cancellation"/> is cancelled.</exception>
+    public static PowerSpectrum Estimate(ReadOnlySpan<double> signal, double sampleIntervalSeconds, int segmentLength = 0, CancellationToken cancellation = default)
     {
         Preconditions.CheckArgumentRange(nameof(signal), signal.Length >= 2, "needs at least 2 samples");
         Preconditions.CheckArgumentRange(nameof(sampleIntervalSeconds), sampleIntervalSeconds > 0 && double.IsFinite(sampleIntervalSeconds), "must be positive and finite");
@@ -61,6 +63,11 @@ public static class WelchSpectrum
         var segments = 0;
         for (var start = 0; start + length <= signal.Length; start += hop)
         {
+            if ((segments & 15) == 0)
+            {
+                cancellation.ThrowIfCancellationRequested();
+            }
+
             var segment = signal.Slice(start, length);
             var mean = 0.0;
             for (var n = 0; n < length; n++)

@@ -34,10 +34,12 @@ public sealed record BoardFitOptions
     /// <summary>Fewer problem time units than this make the record too short to identify a system.</summary>
     public double MinimumProblemUnits { get; init; } = 5;
 
-    /// <summary>Told each stage of the fit and, during multiple shooting, each iteration; null for none. Reports arrive on the fitting thread.</summary>
+    /// <summary>Told each stage of the fit, each multiple-shooting iteration and each finished part of the comparison; null for
+    /// none. Reports arrive on the fitting thread and their fractions never decrease.</summary>
     public IProgress<BoardFitProgress>? Progress { get; init; }
 
-    /// <summary>Checked between stages and between iterations: once cancelled, the fit stops with <see cref="OperationCanceledException"/>. Default none.</summary>
+    /// <summary>Checked between stages, between iterations and inside the comparison's parts: once cancelled, the fit stops
+    /// with <see cref="OperationCanceledException"/>. Default none.</summary>
     public CancellationToken Cancellation { get; init; }
 
     /// <summary>True (the default) to add the comparison of invariants and overlays to the report; false for the diagnosis alone.</summary>
@@ -48,6 +50,7 @@ public sealed record BoardFitOptions
 }
 
 /// <summary>How far a board fit has come.</summary>
-/// <param name="Fraction">Fraction done, 0 to 1 (multiple shooting counts its iterations against the cap, so a fit that converges early jumps ahead).</param>
-/// <param name="Stage">What it is doing, in words, for example "multiple shooting, iteration 12 of 60".</param>
+/// <param name="Fraction">Fraction done, 0 to 1, never decreasing (multiple shooting counts its iterations against the cap, so a fit that converges early jumps ahead).</param>
+/// <param name="Stage">What it is doing, in words, for example "multiple shooting, iteration 12 of at most 60" or
+/// "comparing the capture with the designs: correlation dimension of the capture done (5 of 12 parts)".</param>
 public sealed record BoardFitProgress(double Fraction, string Stage);

@@ -29,7 +29,8 @@ public static class BoardFitter
     /// <exception cref="OperationCanceledException">When <see cref="BoardFitOptions.Cancellation"/> is cancelled.</exception>
     public static ParseResult<FitReport> Fit(BoardDesign design, Capture capture, BoardFitOptions options, TimeProvider clock)
     {
-        Report(options, 0, "capture checks");
+        var progress = new BoardFitProgressReporter(options.Progress, options.Cancellation, options.CompareInvariants);
+        progress.Stage(0, "capture checks");
         var stopwatch = Stopwatch.StartNew();
         if (capture.TimeBase is not UniformTimeBase timeBase)
         {
@@ -70,7 +71,7 @@ public static class BoardFitter
         }
 
         var checks = CaptureInspection.Run(capture);
-        Report(options, 0.05, "starting values");
+        progress.Stage(0.05, "starting values");
         var warnings = new List<string>();
         var clipped = checks.Where(check => check.Id == "clipping").ToList();
         foreach (var check in clipped)
@@ -133,9 +134,9 @@ public static class BoardFitter
         }
 
         var segmentSeconds = options.SegmentProblemUnits * design.TimeScaleSeconds;
-        Report(options, 0.1, "multiple shooting");
+        progress.Stage(BoardFitProgressReporter.ShootingStart, "multiple shooting");
         var shooting = new MultipleShootingOptions { SegmentSeconds = segmentSeconds, ParameterPriors = priors, ChannelOffsetPriorSdVolts = options.ChannelOffsetPriorSdVolts };
-        shooting = shooting with { Solver = shooting.Solver with { Progress = IterationProgress(options), Cancellation = options.Cancellation } };
+        shooting = shooting with { Solver = shooting.Solver with { Progress = progress.Iterations, Cancellation = options.Cancellation } };
         var start = hidden.Count > 0 ? null : EquationErrorStartOf(design, field, shootingChannels, timeBase.IntervalSeconds);
         var fit = start is null
             ? MultipleShootingEstimator.Fit(field, nominal, shootingChannels, 0, timeBase.IntervalSeconds, shooting, guess)
@@ -146,7 +147,7 @@ public static class BoardFitter
             warnings.Add($"The fit stopped before converging ({fit.ExitReason}); treat its numbers as rough.");
         }
 
-        Report(options, 0.95, "structure and mapping checks");
+        progress.Stage(progress.Checks, "structure and mapping checks");
         var structure = hidden.Count > 0
             ? StructureCheck.NotPerformed($"it needs every variable recorded, and {string.Join(", ", hidden.Select(j => variables[j]))} was not.")
             : CheckStructure(design, terms, variables, shootingChannels, fit, timeBase.IntervalSeconds);
@@ -163,7 +164,7 @@ public static class BoardFitter
             warnings.Add("The board does not compute the design's equations (see the structure check): fix the wiring before trusting any part finding.");
         }
 
-        Report(options, 0.97, "part diagnosis");
+        progress.Stage(progress.Diagnosis, "part diagnosis");
         var channelOfVariable = channelIndex.ToDictionary(c => c.Assignment.Variable, c => c.Channel.Name);
         var diagnosisProblem = DesignDiagnosisBuilder.Build(design, terms, field, fit, channelOfVariable, gains.LogSds, gains.CalibratedChannels, gains.CommonLogSd);
         var diagnosis = PartDiagnoser.Diagnose(diagnosisProblem);
@@ -195,23 +196,14 @@ public static class BoardFitter
         };
         if (options.CompareInvariants)
         {
-            Report(options, 0.98, "comparing the capture with the designs");
-            report = report with { Comparison = FitComparisonBuilder.Build(design, capture, report, options.Comparison) };
+            progress.ComparisonStarts();
+            var comparison = options.Comparison with { Progress = progress.Comparison, Cancellation = options.Cancellation };
+            report = report with { Comparison = FitComparisonBuilder.Build(design, capture, report, comparison) };
         }
 
-        Report(options, 1, "done");
+        progress.Stage(1, "done");
         return ParseResult<FitReport>.ForValue(report);
     }
-
-    private static void Report(BoardFitOptions options, double fraction, string stage)
-    {
-        options.Cancellation.ThrowIfCancellationRequested();
-        options.Progress?.Report(new BoardFitProgress(fraction, stage));
-    }
-
-    // Iterations fill 0.1 to 0.95 of the bar against the cap.
-    private static IterationReporter? IterationProgress(BoardFitOptions options) =>
-        options.Progress is { } outer ? new IterationReporter(outer) : null;
 
     /// <summary>Equation-error starting values (coefficients, offsets, channel offsets in closed form) for a fully recorded board.</summary>
     /// <remarks>Null when the regression cannot run or explains less than 90 % of some derivative: then the shooting starts from the nominal design.</remarks>
@@ -330,10 +322,4 @@ public static class BoardFitter
 
     private static ParseResult<FitReport> Error(string field, string message) =>
         ParseResult<FitReport>.ForError(SourceDiagnostic.ErrorAt(field, 0, 0, message));
-
-    private sealed class IterationReporter(IProgress<BoardFitProgress> outer) : IProgress<LevenbergMarquardtIteration>
-    {
-        public void Report(LevenbergMarquardtIteration value) =>
-            outer.Report(new BoardFitProgress(0.1 + (0.85 * value.Iteration / Math.Max(1, value.MaxIterations)), $"multiple shooting, iteration {value.Iteration + 1} of at most {value.MaxIterations}"));
-    }
 }

@@ -32,6 +32,23 @@ public static class FitComparisonBuilder
 {
     private const string Decimation = "capture time series: min/max per column (10,000 columns); simulated time series: LTTB; phase planes: equal arc length; at most 20,000 points a trace";
 
+    // Weights: the parts' shares of the stage's time on a 100,000-sample, 3-channel capture (docs/performance.md).
+    private static readonly ImmutableArray<ComparisonPart> Parts =
+    [
+        new("Lyapunov exponent from the capture (Rosenstein)", 5),
+        new("correlation dimension of the capture", 6),
+        new("Lyapunov spectrum of the fitted design", 2.3),
+        new("Lyapunov spectrum of the nominal design", 2.3),
+        new("fitted design run over the whole record", 0.5),
+        new("nominal design run over the whole record", 0.5),
+        new("overlays of the capture and both designs", 1.5),
+        new("predictability horizons", 0.6),
+        new("correlation dimension of the fitted design's run", 6),
+        new("return map and lobes", 0.3),
+        new("phase-plane occupancy", 0.3),
+        new("power spectra", 1.5),
+    ];
+
     private const string HellingerWhy = "needs no time alignment (only where the orbit spends its time, so chaos does not hurt it), is a metric bounded in [0, 1] comparable across planes and boards, and stays finite where one density has empty cells";
 
     /// <summary>Compares <paramref name="capture"/> with the nominal design and with the design as <paramref name="report"/> fitted it.</summary>
@@ -40,6 +57,7 @@ public static class FitComparisonBuilder
     /// <param name="report">The fit's report: coefficients, offsets, channel gains and offsets.</param>
     /// <param name="options">Settings; null for the defaults.</param>
     /// <returns>The comparison; parts that could not be computed say why.</returns>
+    /// <exception cref="OperationCanceledException">When <see cref="FitComparisonOptions.Cancellation"/> is cancelled; the parts already started have stopped by then.</exception>
     public static FitComparison Build(BoardDesign design, Capture capture, FitReport report, FitComparisonOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(design);
@@ -81,12 +99,12 @@ public static class FitComparisonBuilder
         var n = capture.SampleCount;
         var dt = timeBase.IntervalSeconds;
         var tau = design.TimeScaleSeconds;
-        var reasons = new List<string>();
         if (!nominal.All(double.IsFinite) || !fitted.All(double.IsFinite) || n < 16)
         {
             return FitComparison.NotComputed(n < 16 ? "the record holds fewer than 16 samples" : "the fitted coefficients are not finite");
         }
 
+        options.Cancellation.ThrowIfCancellationRequested();
         var (reference, hiddenNote) = FullState(field, fitted, observed, variables.Count, dt);
         var recordedStates = observed.Keys.Order().ToArray();
         var hidden = Enumerable.Range(0, variables.Count).Where(j => !observed.ContainsKey(j)).Select(j => $"{variables[j]} ({hiddenNote})").ToList();
@@ -95,28 +113,37 @@ public static class FitComparisonBuilder
 
         // The parts run as tasks (longest first) so that a machine with more than one core overlaps them; each part
         // reads only the shared arrays and writes its own result.
-        var timings = new PartTiming?[12];
-        Task<T> Start<T>(int slot, string part, Func<T> work) => Task.Run(() =>
+        var runner = new ComparisonPartRunner(Parts, options.Progress, options.Cancellation);
+        try
         {
-            var watch = Stopwatch.StartNew();
-            var value = work();
-            timings[slot] = new PartTiming(part, watch.Elapsed.TotalSeconds);
-            return value;
-        });
+            return Compare(runner, field, nominal, fitted, reference, recordedStates, variables, recordedChannels, settings, dt, tau, options, stopwatch);
+        }
+        catch (OperationCanceledException)
+        {
+            runner.WaitForStarted();
+            throw;
+        }
+    }
 
+    private static FitComparison Compare(ComparisonPartRunner runner, PolynomialVectorField field, ImmutableArray<double> nominal, ImmutableArray<double> fitted, double[][] reference, int[] recordedStates,
+        IReadOnlyList<string> variables, Dictionary<int, string> recordedChannels, ComparisonSettings settings, double dt, double tau, FitComparisonOptions options, Stopwatch stopwatch)
+    {
+        var n = reference[0].Length;
+        var cancellation = runner.Cancellation;
+        var reasons = new List<string>();
         var startState = reference.Select(channel => channel[0]).ToArray();
-        var captureLyapunovTask = Start(0, "Rosenstein exponent from the capture", () => CaptureExponent(reference, recordedStates, variables, recordedChannels, dt, tau));
-        var captureDimensionTask = Start(1, "correlation dimension of the capture", () => DimensionOf("capture", reference, recordedStates, dt));
-        var fittedSpectrumTask = Start(2, "fitted Lyapunov spectrum", () => ModelSpectrum("fitted", field, startState, fitted, tau, options));
-        var nominalSpectrumTask = Start(3, "nominal Lyapunov spectrum", () => ModelSpectrum("nominal", field, startState, nominal, tau, options));
-        var fittedRunTask = Start(4, "fitted free run", () => Attempt(() => RestartedSimulation.Run(field, fitted, reference, dt, 0, n, options.SimulationTolerance)));
-        var nominalRunTask = Start(5, "nominal free run", () => Attempt(() => RestartedSimulation.Run(field, nominal, reference, dt, 0, n, options.SimulationTolerance)));
-        var fittedSpectrum = fittedSpectrumTask.Result;
+        var captureLyapunovTask = runner.Start(0, () => CaptureExponent(reference, recordedStates, variables, recordedChannels, dt, tau, cancellation));
+        var captureDimensionTask = runner.Start(1, () => DimensionOf("capture", reference, recordedStates, dt, cancellation));
+        var fittedSpectrumTask = runner.Start(2, () => ModelSpectrum("fitted", field, startState, fitted, tau, options));
+        var nominalSpectrumTask = runner.Start(3, () => ModelSpectrum("nominal", field, startState, nominal, tau, options));
+        var fittedRunTask = runner.Start(4, () => Attempt(() => RestartedSimulation.Run(field, fitted, reference, dt, 0, n, options.SimulationTolerance, cancellation)));
+        var nominalRunTask = runner.Start(5, () => Attempt(() => RestartedSimulation.Run(field, nominal, reference, dt, 0, n, options.SimulationTolerance, cancellation)));
+        var fittedSpectrum = runner.Await(fittedSpectrumTask);
         var lambda = fittedSpectrum.Computed && fittedSpectrum.LargestPerSecond > 0 ? fittedSpectrum.LargestPerSecond : double.NaN;
-        var overlaysTask = Start(6, "overlays", () => Overlays(field, nominal, fitted, reference, recordedStates, variables, dt, tau, lambda, options));
-        var horizonTask = Start(7, "predictability horizons", () => Horizons(field, nominal, fitted, reference, recordedStates, variables, dt, tau, lambda, options));
-        var fittedRun = fittedRunTask.Result;
-        var nominalRun = nominalRunTask.Result;
+        var overlaysTask = runner.Start(6, () => Overlays(field, nominal, fitted, reference, recordedStates, variables, dt, tau, lambda, options));
+        var horizonTask = runner.Start(7, () => Horizons(field, nominal, fitted, reference, recordedStates, variables, dt, tau, lambda, options));
+        var fittedRun = runner.Await(fittedRunTask);
+        var nominalRun = runner.Await(nominalRunTask);
         var fittedSamples = fittedRun.Value?[0].Length ?? 0;
         if (fittedSamples < n)
         {
@@ -125,22 +152,15 @@ public static class FitComparisonBuilder
 
         var fittedFree = fittedRun.Value is { } run && run[0].Length >= n / 2 ? run : null;
         var nominalFree = nominalRun.Value is { } other && other[0].Length >= n / 2 ? other : null;
-        var fittedDimensionTask = Start(8, "correlation dimension of the fitted simulation", () => DimensionOf("fitted", fittedFree, recordedStates, dt));
-        var watch = Stopwatch.StartNew();
-        var returnMap = ReturnMapOf(reference, fittedFree, recordedStates, variables, dt, options);
-        var lobes = LobesOf(reference, fittedFree, recordedStates, variables, dt, options);
-        timings[9] = new PartTiming("return map and lobes", watch.Elapsed.TotalSeconds);
-        watch.Restart();
-        var occupancy = OccupancyOf(reference, fittedFree, nominalFree, recordedStates, variables);
-        timings[10] = new PartTiming("occupancy", watch.Elapsed.TotalSeconds);
-        watch.Restart();
-        var spectra = recordedStates.Select(j => SpectrumOf(recordedChannels[j], variables[j], reference[j], fittedFree?[j], nominalFree?[j], dt)).ToList();
-        timings[11] = new PartTiming("spectra", watch.Elapsed.TotalSeconds);
-        var nominalSpectrum = nominalSpectrumTask.Result;
-        var overlays = overlaysTask.Result;
-        var horizon = horizonTask.Result;
-        var captureLyapunov = captureLyapunovTask.Result;
-        var dimension = new DimensionComparison(recordedStates.Select(j => variables[j]).ToList(), captureDimensionTask.Result, fittedDimensionTask.Result);
+        var fittedDimensionTask = runner.Start(8, () => DimensionOf("fitted", fittedFree, recordedStates, dt, cancellation));
+        var (returnMap, lobes) = runner.Run(9, () => (ReturnMapOf(reference, fittedFree, recordedStates, variables, dt, options), LobesOf(reference, fittedFree, recordedStates, variables, dt, options)));
+        var occupancy = runner.Run(10, () => OccupancyOf(reference, fittedFree, nominalFree, recordedStates, variables));
+        var spectra = runner.Run(11, () => recordedStates.Select(j => SpectrumOf(recordedChannels[j], variables[j], reference[j], fittedFree?[j], nominalFree?[j], dt, cancellation)).ToList());
+        var nominalSpectrum = runner.Await(nominalSpectrumTask);
+        var overlays = runner.Await(overlaysTask);
+        var horizon = runner.Await(horizonTask);
+        var captureLyapunov = runner.Await(captureLyapunovTask);
+        var dimension = new DimensionComparison(recordedStates.Select(j => variables[j]).ToList(), runner.Await(captureDimensionTask), runner.Await(fittedDimensionTask));
 
         foreach (var (computed, reason, what) in new (bool, string, string)[]
         {
@@ -167,7 +187,7 @@ public static class FitComparisonBuilder
         var invariants = Summary(fittedSpectrum, nominalSpectrum, captureLyapunov, horizon, dimension, returnMap, lobes, occupancy, spectra);
         return new FitComparison(true, string.Join("; ", reasons), settings, invariants, overlays, horizon,
             new ModelLyapunovComparison("Benettin: variational equations, modified Gram-Schmidt every problem time unit", fittedSpectrum, nominalSpectrum),
-            captureLyapunov, dimension, returnMap, lobes, occupancy, spectra, stopwatch.Elapsed.TotalSeconds, [.. timings.OfType<PartTiming>()]);
+            captureLyapunov, dimension, returnMap, lobes, occupancy, spectra, stopwatch.Elapsed.TotalSeconds, runner.Timings);
     }
 
     /// <summary>Each recorded state in volts (offset removed, signed gain divided out), and the channel naming each state.</summary>
@@ -247,6 +267,7 @@ public static class FitComparisonBuilder
             ReorthonormalizationInterval = tau,
             Transient = options.LyapunovTransientProblemUnits * tau,
             Tolerance = options.LyapunovTolerance,
+            Cancellation = options.Cancellation,
         }));
         if (outcome.Value is not { } spectrum || spectrum.Steps == 0)
         {
@@ -263,7 +284,7 @@ public static class FitComparisonBuilder
         var n = reference[0].Length;
         var interval = double.IsFinite(lambda) ? options.RestartLyapunovTimes / lambda : 0.5 * tau;
         interval = Math.Clamp(interval, dt, Math.Max(dt, (n - 1) * dt));
-        var outcome = Attempt(() => OverlaySeries.Build(reference, dt, field, [new OverlayDesign("nominal", nominal), new OverlayDesign("fitted", fitted)], interval, options.SimulationTolerance));
+        var outcome = Attempt(() => OverlaySeries.Build(reference, dt, field, [new OverlayDesign("nominal", nominal), new OverlayDesign("fitted", fitted)], interval, options.SimulationTolerance, options.Cancellation));
         if (outcome.Value is not { } traces)
         {
             return new OverlayComparison(false, outcome.Reason, [], [], interval, double.NaN, [], Decimation);
@@ -290,6 +311,7 @@ public static class FitComparisonBuilder
             MaximumHorizon = maximum,
             Tolerance = options.SimulationTolerance,
             ScoredStates = recorded,
+            Cancellation = options.Cancellation,
         };
 
         HorizonEstimate Measure(string role, ImmutableArray<double> parameters)
@@ -311,10 +333,10 @@ public static class FitComparisonBuilder
         return new HorizonComparison(options.HorizonBandStandardDeviations, maximum, recorded.Select(j => variables[j]).ToList(), Measure("fitted", fitted), Measure("nominal", nominal));
     }
 
-    private static CaptureLyapunovEstimate CaptureExponent(double[][] reference, int[] recorded, IReadOnlyList<string> variables, Dictionary<int, string> channels, double dt, double tau)
+    private static CaptureLyapunovEstimate CaptureExponent(double[][] reference, int[] recorded, IReadOnlyList<string> variables, Dictionary<int, string> channels, double dt, double tau, CancellationToken cancellation)
     {
         var state = recorded[0];
-        var outcome = Attempt(() => RosensteinLyapunov.EstimateFromSeries(reference[state], dt));
+        var outcome = Attempt(() => RosensteinLyapunov.EstimateFromSeries(reference[state], dt, new RosensteinOptions { Cancellation = cancellation }));
         if (outcome.Value is not { } result)
         {
             return new CaptureLyapunovEstimate(false, outcome.Reason, channels[state], variables[state], double.NaN, double.NaN, 0, 0, 0, "", [], [], 0, 0, [], [], null);
@@ -333,14 +355,14 @@ public static class FitComparisonBuilder
             result.DivergenceTimesSeconds, result.MeanLogDivergence, Line(result.Fit, result.DivergenceTimesSeconds));
     }
 
-    private static CorrelationDimensionEstimate DimensionOf(string role, double[][]? channels, int[] recorded, double dt)
+    private static CorrelationDimensionEstimate DimensionOf(string role, double[][]? channels, int[] recorded, double dt, CancellationToken cancellation)
     {
         if (channels is null)
         {
             return new CorrelationDimensionEstimate(role, false, "the fitted design's simulation did not run", double.NaN, [], [], [], null, 0, 0);
         }
 
-        var outcome = Attempt(() => CorrelationDimension.EstimateFromChannels(recorded.Select(j => channels[j]).ToArray(), dt));
+        var outcome = Attempt(() => CorrelationDimension.EstimateFromChannels(recorded.Select(j => channels[j]).ToArray(), dt, new CorrelationDimensionOptions { Cancellation = cancellation }));
         if (outcome.Value is not { } result)
         {
             return new CorrelationDimensionEstimate(role, false, outcome.Reason, double.NaN, [], [], [], null, 0, 0);
@@ -472,7 +494,7 @@ public static class FitComparisonBuilder
     private static double[][] Rows(double[] cells, int bins) =>
         [.. Enumerable.Range(0, bins).Select(row => cells[(row * bins)..((row + 1) * bins)])];
 
-    private static ChannelSpectrum SpectrumOf(string channel, string variable, double[] capture, double[]? fitted, double[]? nominal, double dt)
+    private static ChannelSpectrum SpectrumOf(string channel, string variable, double[] capture, double[]? fitted, double[]? nominal, double dt, CancellationToken cancellation)
     {
         var segment = WelchSpectrum.DefaultSegmentLength(capture.Length);
         if (capture.Length < 64)
@@ -480,8 +502,8 @@ public static class FitComparisonBuilder
             return new ChannelSpectrum(channel, variable, false, "fewer than 64 samples", [], [], [], [], double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, 0, 0);
         }
 
-        var captured = WelchSpectrum.Estimate(capture, dt, segment);
-        PowerSpectrum? Of(double[]? values) => values is { } v && v.Length >= segment ? WelchSpectrum.Estimate(v, dt, segment) : null;
+        var captured = WelchSpectrum.Estimate(capture, dt, segment, cancellation);
+        PowerSpectrum? Of(double[]? values) => values is { } v && v.Length >= segment ? WelchSpectrum.Estimate(v, dt, segment, cancellation) : null;
         var fittedSpectrum = Of(fitted);
         var nominalSpectrum = Of(nominal);
         double Peak(PowerSpectrum? s) => s is null ? double.NaN : s.FrequenciesHertz[s.PeakBin()];

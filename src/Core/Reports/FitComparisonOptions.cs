@@ -32,4 +32,18 @@ public sealed record FitComparisonOptions
 
     /// <summary>The variable whose sign names the lobe; null to take the first recorded variable whose capture is two-lobed about 0 V.</summary>
     public string? LobeVariable { get; init; }
+
+    /// <summary>Told each part as it finishes, with the share of the comparison done; null for none. Reports arrive on the
+    /// thread that called <see cref="FitComparisonBuilder.Build"/>.</summary>
+    public IProgress<FitComparisonProgress>? Progress { get; init; }
+
+    /// <summary>Checked between the parts and inside the long ones (the Lyapunov spectra per interval, the correlation sums
+    /// every 16 reference points, Rosenstein's searches every 1024 points, Welch every 16 segments, the simulations every
+    /// 1024 steps): once cancelled, the comparison stops with <see cref="OperationCanceledException"/>. Default none.</summary>
+    public CancellationToken Cancellation { get; init; }
 }
+
+/// <summary>How far the comparison has come.</summary>
+/// <param name="Fraction">Share of the comparison's work done, 0 to 1 (the finished parts weighted by their usual cost); never decreases.</param>
+/// <param name="Stage">The part that just finished, in words, for example "correlation dimension of the capture done (5 of 12 parts)".</param>
+public sealed record FitComparisonProgress(double Fraction, string Stage);

@@ -62,6 +62,14 @@ public sealed record DormandPrince45 : OdeMethod
     /// <summary>The step-size controller; default the DOPRI5 PI controller.</summary>
     public StepSizeController Controller { get; init; } = new();
 
+    /// <summary>Checked every <see cref="CancellationCheckSteps"/> accepted steps: once cancelled, the solve stops with
+    /// <see cref="OperationCanceledException"/>. Default none.</summary>
+    public CancellationToken Cancellation { get; init; }
+
+    /// <summary>Accepted steps between two looks at <see cref="Cancellation"/> (a step costs six field evaluations, so the
+    /// look is free at this spacing and a long run still stops within a few milliseconds).</summary>
+    public const int CancellationCheckSteps = 1024;
+
     /// <summary>Whether samples were requested.</summary>
     internal bool HasSamples => !SampleTimes.IsDefaultOrEmpty || SampleInterval > 0;
 

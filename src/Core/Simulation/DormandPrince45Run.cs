@@ -38,8 +38,15 @@ internal static class DormandPrince45Run
         }
 
         var stoppedByEvent = false;
+        var stepsSinceCheck = 0;
         while (stepper.Step())
         {
+            if (++stepsSinceCheck == DormandPrince45.CancellationCheckSteps)
+            {
+                options.Cancellation.ThrowIfCancellationRequested();
+                stepsSinceCheck = 0;
+            }
+
             var reached = stepper.Time;
             if (events?.CheckLastStep() is { } stopTime)
             {

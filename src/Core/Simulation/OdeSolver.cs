@@ -18,6 +18,7 @@ public static class OdeSolver
     /// <returns>The solution, whatever the outcome.</returns>
     /// <exception cref="ArgumentOutOfRangeException">When an option or the problem is invalid.</exception>
     /// <exception cref="ArgumentNullException">When an argument is null.</exception>
+    /// <exception cref="OperationCanceledException">When <see cref="DormandPrince45.Cancellation"/> is cancelled during the solve.</exception>
     public static OdeSolution Solve(OdeProblem problem, OdeMethod method)
     {
         ArgumentNullException.ThrowIfNull(problem);

@@ -11,8 +11,8 @@ namespace Patchproof.Server.Fits;
 /// <remarks>
 /// The core fits one capture at a time; a fit of several captures fits the first and says so in the result's notes.
 /// The channels are taken in file order for the design's variables (sign +1), as the core does when no mapping is given.
-/// Progress is the core's: its stages, then one report per Levenberg-Marquardt iteration; a cancel request stops the
-/// fit between iterations. When the board's bench has a probe calibration (docs/probe-calibration.md), the newest one
+/// Progress is the core's: its stages, one report per Levenberg-Marquardt iteration and one per finished comparison part,
+/// never decreasing; a cancel request stops the fit between iterations or inside the comparison. When the board's bench has a probe calibration (docs/probe-calibration.md), the newest one
 /// sets the probe gains, and the result's notes say so.
 /// </remarks>
 internal sealed class BoardFitJobExecutor(TimeProvider clock, ProbeCalibrationStore? calibrations = null) : IFitJobExecutor

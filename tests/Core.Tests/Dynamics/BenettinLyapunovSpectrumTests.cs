@@ -40,4 +40,17 @@ public sealed class BenettinLyapunovSpectrumTests
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => BenettinLyapunovSpectrum.Compute(new LorenzSystem(), [1, 1, 1], LorenzSystem.ClassicParameters, 0.5));
     }
+
+    [Fact]
+    public void Compute_CancelledPartWayThrough_StopsWithinAnInterval()
+    {
+        // Cancelled at the 50,000th field evaluation of a run of about a million (1000 intervals at 1e-7); one interval of
+        // one time unit takes a few hundred steps, so the stop comes within a few thousand evaluations.
+        using var source = new CancellationTokenSource();
+        var system = new CancellingSystem(new LorenzSystem(), source, 50_000);
+        var options = new BenettinOptions { Tolerance = 1e-7, Transient = 5, Cancellation = source.Token };
+
+        Assert.ThrowsAny<OperationCanceledException>(() => BenettinLyapunovSpectrum.Compute(system, [1, 1, 1], LorenzSystem.ClassicParameters, 1000, options));
+        Assert.InRange(system.Evaluations, 50_000, 70_000);
+    }
 }

@@ -70,4 +70,12 @@ public sealed class CorrelationDimensionTests
 
         Assert.InRange(result.Dimension, 1.9, 2.05);
     }
+
+    [Fact]
+    public void EstimateFromChannels_CancelledToken_StopsWithOperationCanceled()
+    {
+        var lorenz = TestTrajectories.Lorenz(10_000, 0.01);
+
+        Assert.ThrowsAny<OperationCanceledException>(() => CorrelationDimension.EstimateFromChannels(lorenz, 0.01, new CorrelationDimensionOptions { Cancellation = new CancellationToken(true) }));
+    }
 }

@@ -20,7 +20,7 @@ public sealed class DelayEmbeddingTests
         // at dimension 3 (from memory); a 3-D flow cannot need fewer than 3 (Takens 1981).
         var x = TestTrajectories.Lorenz(10_000, 0.01)[0];
 
-        var choice = DelayEmbedding.Choose(x, maximumLag: 100, temporalExclusion: 100);
+        var choice = DelayEmbedding.Choose(x, maximumLag: 100, temporalExclusion: 100, TestContext.Current.CancellationToken);
 
         Assert.Equal(3, choice.Dimension);
         Assert.Equal(DelayRule.FirstMinimumOfMutualInformation, choice.DelayRule);

@@ -13,7 +13,7 @@ public sealed class OverlaySeriesTests
         OverlayDesign[] designs = [new("nominal design", [10, 28, 8.0 / 3]), new("fitted design", [10, 29, 8.0 / 3])];
 
         // Act: restarts every half Lyapunov time (0.5 / 0.9056, about 0.55).
-        var overlays = OverlaySeries.Build(capture, 0.01, new LorenzSystem(), designs, 0.55, 1e-6);
+        var overlays = OverlaySeries.Build(capture, 0.01, new LorenzSystem(), designs, 0.55, 1e-6, TestContext.Current.CancellationToken);
 
         // Assert
         Assert.Equal(["capture", "nominal design", "fitted design"], overlays.Select(o => o.Label));
@@ -24,5 +24,14 @@ public sealed class OverlaySeriesTests
         Assert.Equal(50_000 / 55 + 1, nominal.RestartTimes.Length);
         Assert.Equal(capture[0][0], nominal.TimeSeries[0].Y[0], 12);
         Assert.Equal(capture[0][^1], nominal.TimeSeries[0].Y[^1], 1e-2);
+    }
+
+    [Fact]
+    public void Build_CancelledToken_StopsWithOperationCanceled()
+    {
+        var capture = TestTrajectories.Lorenz(2_000, 0.01, substeps: 2);
+        OverlayDesign[] designs = [new("nominal", [.. LorenzSystem.ClassicParameters])];
+
+        Assert.ThrowsAny<OperationCanceledException>(() => OverlaySeries.Build(capture, 0.01, new LorenzSystem(), designs, 0.55, 1e-6, new CancellationToken(true)));
     }
 }

@@ -34,6 +34,15 @@ public sealed class PredictabilityHorizonTests
         Assert.True(drifted.MeanHorizon < 0.7 * exact.MeanHorizon, $"drifted {drifted.MeanHorizon}, exact {exact.MeanHorizon}");
     }
 
+    [Fact]
+    public void Measure_CancelledToken_StopsWithOperationCanceled()
+    {
+        var reference = TestTrajectories.Lorenz(10_000, 0.01);
+        var options = new PredictabilityOptions { Restarts = 10, Cancellation = new CancellationToken(true) };
+
+        Assert.ThrowsAny<OperationCanceledException>(() => PredictabilityHorizon.Measure(new LorenzSystem(), LorenzSystem.ClassicParameters, reference, 0.01, 1e-3, 0.9056, options));
+    }
+
     private static double[][] Noisy(double[][] channels, double relative)
     {
         var random = new Random(9);

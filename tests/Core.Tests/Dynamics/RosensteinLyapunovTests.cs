@@ -59,4 +59,21 @@ public sealed class RosensteinLyapunovTests
 
         Assert.True(result.Status != EstimateStatus.Estimated || Math.Abs(result.LargestExponentPerSecond) < 0.05, $"got {result.LargestExponentPerSecond}");
     }
+
+    [Fact]
+    public void EstimateFromSeries_CancelledToken_StopsWithOperationCanceled()
+    {
+        var x = TestTrajectories.Lorenz(10_000, 0.01)[0];
+
+        Assert.ThrowsAny<OperationCanceledException>(() => RosensteinLyapunov.EstimateFromSeries(x, 0.01, new RosensteinOptions { Cancellation = new CancellationToken(true) }));
+    }
+
+    [Fact]
+    public void Estimate_CancelledToken_StopsInTheNeighbourSearch()
+    {
+        var lorenz = TestTrajectories.Lorenz(10_000, 0.01);
+        var options = new RosensteinOptions { TemporalExclusionSamples = 50, Cancellation = new CancellationToken(true) };
+
+        Assert.ThrowsAny<OperationCanceledException>(() => RosensteinLyapunov.Estimate(PointCloud.FromChannels(lorenz), 0.01, options));
+    }
 }

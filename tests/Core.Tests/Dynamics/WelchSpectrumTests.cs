@@ -15,7 +15,7 @@ public sealed class WelchSpectrumTests
         var signal = Enumerable.Range(0, 16 * segment).Select(i => 2.0 * Math.Sin(2 * Math.PI * frequency * i * dt)).ToArray();
 
         // Act
-        var spectrum = WelchSpectrum.Estimate(signal, dt, segment);
+        var spectrum = WelchSpectrum.Estimate(signal, dt, segment, TestContext.Current.CancellationToken);
 
         // Assert
         Assert.Equal(64, spectrum.PeakBin());
@@ -30,7 +30,7 @@ public sealed class WelchSpectrumTests
         const double dt = 1e-4;
         var signal = Enumerable.Range(0, 50_000).Select(i => 0.5 * Math.Sin(2 * Math.PI * 123.4 * i * dt + 0.3)).ToArray();
 
-        var spectrum = WelchSpectrum.Estimate(signal, dt);
+        var spectrum = WelchSpectrum.Estimate(signal, dt, cancellation: TestContext.Current.CancellationToken);
 
         // Parseval with the Hann window: the window-weighted variance equals A^2/2 to within the
         // leakage of the segment means (below 1e-3 here).
@@ -47,7 +47,7 @@ public sealed class WelchSpectrumTests
         const double sigma = 0.3;
         var noise = Enumerable.Range(0, 200_000).Select(_ => sigma * Gaussian(random)).ToArray();
 
-        var spectrum = WelchSpectrum.Estimate(noise, dt, 512);
+        var spectrum = WelchSpectrum.Estimate(noise, dt, 512, TestContext.Current.CancellationToken);
 
         var interior = spectrum.Density.Skip(5).Take(spectrum.Density.Length - 10).ToArray();
         Assert.Equal(2 * sigma * sigma * dt, interior.Average(), 2 * sigma * sigma * dt * 0.02);
@@ -65,9 +65,17 @@ public sealed class WelchSpectrumTests
     [Fact]
     public void Estimate_OddSegmentLength_IsRejected()
     {
-        Assert.Throws<ArgumentOutOfRangeException>(() => WelchSpectrum.Estimate(new double[100], 1, 33));
+        Assert.Throws<ArgumentOutOfRangeException>(() => WelchSpectrum.Estimate(new double[100], 1, 33, TestContext.Current.CancellationToken));
     }
 
     internal static double Gaussian(Random random) =>
         Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
+
+    [Fact]
+    public void Estimate_CancelledToken_StopsWithOperationCanceled()
+    {
+        var signal = Enumerable.Range(0, 4096).Select(i => Math.Sin(0.1 * i)).ToArray();
+
+        Assert.ThrowsAny<OperationCanceledException>(() => WelchSpectrum.Estimate(signal, 1e-3, 256, new CancellationToken(true)));
+    }
 }

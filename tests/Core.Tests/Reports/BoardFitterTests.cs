@@ -147,4 +147,56 @@ public sealed class BoardFitterTests
         Assert.Equal("QH-L3", root.GetProperty("board").GetString());
         Assert.True(root.GetProperty("diagnosis").TryGetProperty("outcome", out _));
     }
+
+    [Fact]
+    public void Fit_WholeFitWithComparison_ProgressNeverDecreasesAndNamesEachComparisonPart()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 21, problemUnits: 10);
+        var seen = new List<BoardFitProgress>();
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions { Progress = new Recorder(seen, _ => { }) }, Clock).Value;
+
+        Assert.NotNull(report.Comparison);
+        for (var i = 1; i < seen.Count; i++)
+        {
+            Assert.True(seen[i].Fraction >= seen[i - 1].Fraction, $"'{seen[i].Stage}' fell from {seen[i - 1].Fraction} to {seen[i].Fraction}");
+        }
+
+        Assert.Equal(("done", 1.0), (seen[^1].Stage, seen[^1].Fraction));
+        var parts = seen.Where(p => p.Stage.StartsWith("comparing the capture with the designs: ", StringComparison.Ordinal)).ToList();
+        Assert.Equal(12, parts.Count);
+        Assert.All(parts, p => Assert.InRange(p.Fraction, 0.9, 0.99));
+        Assert.Contains(parts, p => p.Stage.Contains("correlation dimension of the capture done", StringComparison.Ordinal));
+        Assert.EndsWith("done (12 of 12 parts)", parts[^1].Stage, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_CancelledWhenTheComparisonBegins_StopsWithOperationCanceledAndReportsNothingMore()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 22, problemUnits: 10);
+        using var source = new CancellationTokenSource();
+        var seen = new List<BoardFitProgress>();
+        var progress = new Recorder(seen, p =>
+        {
+            if (p.Stage.StartsWith("comparing", StringComparison.Ordinal))
+            {
+                source.Cancel();
+            }
+        });
+
+        Assert.ThrowsAny<OperationCanceledException>(() => BoardFitter.Fit(design, capture, new BoardFitOptions { Progress = progress, Cancellation = source.Token }, Clock));
+        Assert.Equal("comparing the capture with the designs", seen[^1].Stage);
+    }
+
+    /// <summary>Keeps every report and hands it to a callback on the reporting thread.</summary>
+    private sealed class Recorder(List<BoardFitProgress> seen, Action<BoardFitProgress> then) : IProgress<BoardFitProgress>
+    {
+        public void Report(BoardFitProgress value)
+        {
+            seen.Add(value);
+            then(value);
+        }
+    }
 }

@@ -35,6 +35,32 @@ public sealed class ComparedBoards
 public sealed class FitComparisonBuilderTests(ComparedBoards boards) : IClassFixture<ComparedBoards>
 {
     [Fact]
+    public void Build_CancelledWhenTheFirstPartFinishes_StopsWithOperationCanceledBeforeTheRest()
+    {
+        using var source = new CancellationTokenSource();
+        var seen = new List<FitComparisonProgress>();
+        var options = new FitComparisonOptions { Progress = new ComparisonProgressRecorder(source, seen), Cancellation = source.Token };
+
+        Assert.ThrowsAny<OperationCanceledException>(() => FitComparisonBuilder.Build(boards.Design, boards.HealthyCapture, boards.Healthy, options));
+        Assert.InRange(seen.Count, 1, 11);
+    }
+
+    [Fact]
+    public void Build_WithProgress_ReportsEveryPartOnceWithARisingFraction()
+    {
+        var seen = new List<FitComparisonProgress>();
+
+        var comparison = FitComparisonBuilder.Build(boards.Design, boards.HealthyCapture, boards.Healthy, new FitComparisonOptions { Progress = new ComparisonProgressRecorder(null, seen) });
+
+        Assert.True(comparison.Computed, comparison.Reason);
+        Assert.Equal(12, seen.Count);
+        Assert.Equal(12, comparison.Timings.Count);
+        Assert.Equal(1, seen[^1].Fraction, 12);
+        Assert.All(seen.Zip(seen.Skip(1)), pair => Assert.True(pair.Second.Fraction > pair.First.Fraction));
+        Assert.Equal(comparison.Timings.Select(t => t.Part + " done").Order(), seen.Select(p => p.Stage[..p.Stage.LastIndexOf(" (", StringComparison.Ordinal)]).Order());
+    }
+
+    [Fact]
     public void Fit_SyntheticLorenzBoard_ReportCarriesEveryComparisonMember()
     {
         var comparison = boards.Healthy.Comparison;
@@ -165,5 +191,15 @@ public sealed class FitComparisonBuilderTests(ComparedBoards boards) : IClassFix
         var report = BoardFitter.Fit(boards.Design, capture, new BoardFitOptions { CompareInvariants = false }, ComparedBoards.FixedClock).Value;
 
         Assert.Null(report.Comparison);
+    }
+}
+
+/// <summary>Keeps every report; cancels the source, when one is given, at the first.</summary>
+internal sealed class ComparisonProgressRecorder(CancellationTokenSource? source, List<FitComparisonProgress> seen) : IProgress<FitComparisonProgress>
+{
+    public void Report(FitComparisonProgress value)
+    {
+        seen.Add(value);
+        source?.Cancel();
     }
 }

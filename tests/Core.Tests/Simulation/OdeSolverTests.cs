@@ -319,6 +319,20 @@ public sealed class OdeSolverTests
         Assert.Equal(16, solution.Statistics.FunctionEvaluations);
     }
 
+    [Fact]
+    public void Solve_CancelledDuringALongRun_StopsWithinTheNextCheckOfSteps()
+    {
+        // The token is cancelled at the 10,000th field evaluation of a run that would take millions; the solver looks
+        // at it every 1024 accepted steps (six evaluations each, a few more for rejected steps).
+        using var source = new CancellationTokenSource();
+        var system = new CancellingSystem(new LorenzSystem(), source, 10_000);
+        var problem = new OdeProblem(system, [1.0, 1.0, 1.0], 0, 10_000, [.. LorenzSystem.ClassicParameters]);
+        var method = new DormandPrince45 { RelativeTolerance = 1e-8, AbsoluteTolerance = 1e-8, KeepSteps = false, MaxSteps = int.MaxValue, Cancellation = source.Token };
+
+        Assert.ThrowsAny<OperationCanceledException>(() => OdeSolver.Solve(problem, method));
+        Assert.InRange(system.Evaluations, 10_000, 10_000 + (2 * 7 * DormandPrince45.CancellationCheckSteps));
+    }
+
     private static double MaxAbsDifference(ReadOnlySpan<double> actual, ReadOnlySpan<double> expected)
     {
         var worst = 0.0;

@@ -141,7 +141,7 @@ public static class MultipleShootingEstimator
     /// <remarks>Near the optimum the shooting cost is not exactly quadratic (Huber weights, continuity at the joins,
     /// adaptive integration), so a run of rejected steps can drive lambda up until every step is tiny and the step test
     /// fires far from the minimum. A fresh start with light damping takes the Gauss-Newton step again; the restarts
-    /// share the iteration cap.</remarks>
+    /// share the iteration cap, and their progress reports continue the count against it, so a progress bar never steps back.</remarks>
     private static LevenbergMarquardtOutcome RestartWhileStalled(MultipleShootingProblem problem, LevenbergMarquardtOutcome outcome, LevenbergMarquardtOptions solver)
     {
         var iterations = outcome.Iterations;
@@ -153,7 +153,8 @@ public static class MultipleShootingEstimator
                 break;
             }
 
-            var again = LevenbergMarquardtSolver.Minimize(problem, outcome.Parameters, solver with { MaxIterations = solver.MaxIterations - iterations });
+            var progress = solver.Progress is { } outer ? new ContinuedIterationProgress(outer, iterations, solver.MaxIterations) : null;
+            var again = LevenbergMarquardtSolver.Minimize(problem, outcome.Parameters, solver with { MaxIterations = solver.MaxIterations - iterations, Progress = progress });
             iterations += again.Iterations;
             var improved = again.SumOfSquares < outcome.SumOfSquares;
             outcome = (improved ? again : outcome) with { Iterations = iterations };

@@ -79,4 +79,37 @@ public sealed class FitPageTests : BunitContext
 
         cut.WaitForAssertion(() => Assert.Contains("shorter than one Lyapunov time", cut.Find("[role=alert]").TextContent, StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void Render_Comparing_ShowsThePartThatJustFinishedInWords()
+    {
+        const string stage = "comparing the capture with the designs: correlation dimension of the capture done (5 of 12 parts)";
+        api.Fit = () => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Running, 0.93) with { Stage = stage });
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Equal($"running, 93 % · {stage}", cut.Find(".state").TextContent));
+    }
+
+    [Fact]
+    public void Render_ServerAnswersLowerProgressLater_BarNeverGoesBack()
+    {
+        var answer = DemoData.FitJob(FitJobState.Running, 0.6);
+        api.Fit = () => FakePatchproofApi.Ok(Volatile.Read(ref answer));
+        var cut = RenderPage();
+        cut.WaitForAssertion(() => Assert.Contains("running, 60 %", cut.Find(".state").TextContent, StringComparison.Ordinal));
+
+        Volatile.Write(ref answer, DemoData.FitJob(FitJobState.Running, 0.4));
+        var reads = api.FitReads;
+        // Two more reads: the first of them has been shown by the time the second is made.
+        cut.WaitForAssertion(() => Assert.True(api.FitReads >= reads + 2), TimeSpan.FromSeconds(10));
+
+        Assert.Contains("running, 60 %", cut.Find(".state").TextContent, StringComparison.Ordinal);
+        Assert.Equal(0.6, ProgressValue(cut));
+        Volatile.Write(ref answer, DemoData.FitJob(FitJobState.Running, 0.8));
+        cut.WaitForAssertion(() => Assert.Equal(0.8, ProgressValue(cut)), TimeSpan.FromSeconds(10));
+    }
+
+    private static double ProgressValue(IRenderedComponent<FitPage> cut) =>
+        double.Parse(cut.Find("progress").GetAttribute("value")!, System.Globalization.CultureInfo.InvariantCulture);
 }
