@@ -4,6 +4,7 @@ using System.Net.Http.Json;
 using System.Text.Json;
 using Patchproof.Client.Models;
 using Patchproof.Client.Services.Wire;
+using Patchproof.Contracts.Fits;
 using Patchproof.Contracts.Health;
 
 namespace Patchproof.Client.Services;
@@ -102,19 +103,19 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
 
     /// <inheritdoc />
     public Task<ApiResult<IReadOnlyList<FitJob>>> ListFitsAsync(Guid boardId, CancellationToken cancellationToken = default) =>
-        GetListAsync<FitWire, FitJob>($"api/boards/{boardId}/fits", w => w.ToView(), cancellationToken);
+        GetListAsync<FitResponse, FitJob>($"api/boards/{boardId}/fits", w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
     public Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, CancellationToken cancellationToken = default) =>
-        SendAsync<FitWire, FitJob>(() => PostJson("api/fits", new StartFitWire(boardId, designVersion, captureIds)), w => w.ToView(), cancellationToken);
+        SendAsync<FitResponse, FitJob>(() => PostJson("api/fits", new StartFitWire(boardId, designVersion, captureIds)), w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
     public Task<ApiResult<FitJob>> GetFitAsync(Guid fitId, CancellationToken cancellationToken = default) =>
-        SendAsync<FitWire, FitJob>(() => new HttpRequestMessage(HttpMethod.Get, $"api/fits/{fitId}"), w => w.ToView(), cancellationToken);
+        SendAsync<FitResponse, FitJob>(() => new HttpRequestMessage(HttpMethod.Get, $"api/fits/{fitId}"), w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
     public Task<ApiResult<FitJob>> CancelFitAsync(Guid fitId, CancellationToken cancellationToken = default) =>
-        SendAsync<FitWire, FitJob>(() => new HttpRequestMessage(HttpMethod.Post, $"api/fits/{fitId}/cancel"), w => w.ToView(), cancellationToken);
+        SendAsync<FitResponse, FitJob>(() => new HttpRequestMessage(HttpMethod.Post, $"api/fits/{fitId}/cancel"), w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
     public async Task<ApiResult<FitReportView>> GetReportAsync(Guid fitId, CancellationToken cancellationToken = default)

@@ -1,4 +1,5 @@
 using Patchproof.Client.Models;
+using Patchproof.Contracts.Fits;
 
 namespace Patchproof.Client.Services.Wire;
 
@@ -16,7 +17,7 @@ internal static class WireMapping
         w.Id, w.BoardId, w.FileName, w.SizeBytes, w.RowCount, w.ChannelNames ?? [], w.SampleIntervalSeconds, w.DurationSeconds,
         (w.Checks ?? []).Select(c => new CaptureCheckEntry(ToSeverity(c.Severity), c.Line, c.Column, c.Message)).ToList(), w.UploadedAt);
 
-    public static FitJob ToView(this FitWire w) => new(
+    public static FitJob ToView(this FitResponse w) => new(
         w.Id, w.BoardId, w.DesignVersion, w.CaptureIds ?? [], ToState(w.State), w.Progress, w.Stage, w.CancelRequested, w.Error,
         w.HasResult, w.CreatedAt, w.FinishedAt);
 
@@ -33,5 +34,12 @@ internal static class WireMapping
         _ => CheckSeverity.Note,
     };
 
-    public static FitJobState ToState(string? state) => Enum.TryParse<FitJobState>(state, ignoreCase: true, out var parsed) ? parsed : FitJobState.Failed;
+    public static FitJobState ToState(FitState state) => state switch
+    {
+        FitState.Queued => FitJobState.Queued,
+        FitState.Running => FitJobState.Running,
+        FitState.Succeeded => FitJobState.Succeeded,
+        FitState.Cancelled => FitJobState.Cancelled,
+        _ => FitJobState.Failed,
+    };
 }

@@ -1,4 +1,5 @@
 using System.Text.Json;
+using Patchproof.Contracts.Fits;
 
 namespace Patchproof.Client.Services.Wire;
 
@@ -20,13 +21,9 @@ internal sealed record CaptureWire(
     Guid Id, Guid BoardId, string FileName, long SizeBytes, long RowCount, List<string> ChannelNames,
     double? SampleIntervalSeconds, double DurationSeconds, List<CaptureCheckWire> Checks, DateTimeOffset UploadedAt);
 
-internal sealed record FitWire(
-    Guid Id, Guid BoardId, int DesignVersion, List<Guid> CaptureIds, string State, double Progress, string? Stage,
-    bool CancelRequested, string? Error, bool HasResult, DateTimeOffset CreatedAt, DateTimeOffset? FinishedAt);
-
 internal sealed record StartFitWire(Guid BoardId, int DesignVersion, IReadOnlyList<Guid> CaptureIds);
 
-internal sealed record FitReportWire(FitWire Fit, BoardWire Board, DesignVersionSummaryWire Design, List<CaptureWire> Captures, JsonElement Result);
+internal sealed record FitReportWire(FitResponse Fit, BoardWire Board, DesignVersionSummaryWire Design, List<CaptureWire> Captures, JsonElement Result);
 
 internal sealed record MappingCheckRequestWire(int DesignVersion, IReadOnlyList<ChannelMappingWire> Mapping);
 

@@ -1,0 +1,57 @@
+using System.Net;
+using System.Text;
+using System.Text.Json;
+using Patchproof.Client.Models;
+using Patchproof.Client.Services;
+using Patchproof.Contracts.Fits;
+
+namespace Patchproof.Client.Tests.Services;
+
+public sealed class PatchproofApiTests
+{
+    private static readonly Guid FitId = Guid.Parse("5d1c0f3e-3a55-4a57-9a8b-0c1f2e3d4a5b");
+    private static readonly Guid BoardId = Guid.Parse("0b6f7e21-93d4-4c8e-8f0e-6a2f5c1d9e33");
+    private static readonly Guid CaptureId = Guid.Parse("9e2a4c6b-1d3f-4b5a-8c7e-2f4a6b8c0d1e");
+    private static readonly DateTimeOffset At = new(2026, 12, 1, 21, 30, 0, TimeSpan.Zero);
+
+    [Theory]
+    [InlineData(FitState.Queued, FitJobState.Queued)]
+    [InlineData(FitState.Running, FitJobState.Running)]
+    [InlineData(FitState.Succeeded, FitJobState.Succeeded)]
+    [InlineData(FitState.Failed, FitJobState.Failed)]
+    [InlineData(FitState.Cancelled, FitJobState.Cancelled)]
+    public async Task GetFitAsync_ServersFitResponse_BecomesTheFitThePageShows(FitState state, FitJobState shown)
+    {
+        // The body is the shared contract record as the server writes it (web defaults, state as a string).
+        var answer = new FitResponse(FitId, BoardId, 2, [CaptureId], state, 0.93, "comparing the capture with the designs: power spectra done (9 of 12 parts)",
+            false, 1, null, state == FitState.Succeeded, At, At, state == FitState.Succeeded ? At.AddMinutes(1) : null);
+        var api = new PatchproofApi(new HttpClient(new AnswerWith(JsonSerializer.Serialize(answer, JsonSerializerOptions.Web))) { BaseAddress = new Uri("http://localhost/") });
+
+        var read = await api.GetFitAsync(FitId, TestContext.Current.CancellationToken);
+
+        Assert.True(read.Succeeded);
+        var fit = read.Value;
+        Assert.Equal((FitId, BoardId, 2, shown, 0.93), (fit.Id, fit.BoardId, fit.DesignVersion, fit.State, fit.Progress));
+        Assert.Equal([CaptureId], fit.CaptureIds);
+        Assert.Equal(answer.Stage, fit.Stage);
+        Assert.Equal(state == FitState.Succeeded, fit.HasReport);
+        Assert.Equal(answer.FinishedAt, fit.FinishedAt);
+    }
+
+    [Fact]
+    public void FitResponseJson_StateIsWrittenAsItsName()
+    {
+        var answer = new FitResponse(FitId, BoardId, 1, [CaptureId], FitState.Running, 0.5, null, false, 1, null, false, At, null, null);
+
+        using var document = JsonDocument.Parse(JsonSerializer.Serialize(answer, JsonSerializerOptions.Web));
+
+        Assert.Equal("Running", document.RootElement.GetProperty("state").GetString());
+    }
+
+    /// <summary>Answers every request with 200 and the given JSON body.</summary>
+    private sealed class AnswerWith(string json) : HttpMessageHandler
+    {
+        protected override Task<HttpResponseMessage> SendAsync(HttpRequestMessage request, CancellationToken cancellationToken) =>
+            Task.FromResult(new HttpResponseMessage(HttpStatusCode.OK) { Content = new StringContent(json, Encoding.UTF8, "application/json") });
+    }
+}
