@@ -15,9 +15,13 @@ run designs/qh-l4-plover.json --faults R3=+10% --part-spread 0.5 --seed 12 --t-e
 # QH-L5 Tern: the z integrator's capacitor (C3, a 20 % part) came in 15 % low; only x and z captured.
 run designs/qh-l5-tern.json --faults C3=-15% --part-spread 0.5 --seed 13 --t-end 40ms --channels CH1=x,CH2=z \
   --style semicolon-decimal-comma --out sample-captures/qh-l5-tern.csv
-# QH-R1 Gannet: Rössler board whose multiplier scale factor runs 4 % low.
+# QH-R1 Gannet: Rössler board whose multiplier scale factor runs 4 % low, recorded with probes that are off by up to
+# 1.5 %; the second file is the bench's probe calibration: all three probes on the x integrator's output.
+gannet_probes="CH1=+1.2%,CH2=-0.6%,CH3=-1.5%"
 run designs/qh-r1-gannet.json --faults M1=-4% --part-spread 0.5 --seed 14 --t-end 120ms --style units-row \
-  --out sample-captures/qh-r1-gannet.csv
+  --probe-gains "$gannet_probes" --out sample-captures/qh-r1-gannet.csv
+run designs/qh-r1-gannet.json --faults M1=-4% --part-spread 0.5 --seed 24 --t-end 20ms --style units-row \
+  --channels CH1=x,CH2=x,CH3=x --probe-gains "$gannet_probes" --out sample-captures/qh-r1-gannet-probe-calibration.csv
 # QH-D2 Dunlin: healthy damped oscillator, two channels, recorded from the initial kick.
 run designs/qh-d2-dunlin.json --part-spread 0.5 --seed 15 --settle 0s --trigger 0.05 --t-end 30ms --samples 20000 \
   --style tab --out sample-captures/qh-d2-dunlin.csv

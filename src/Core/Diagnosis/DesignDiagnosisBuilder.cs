@@ -13,8 +13,9 @@ namespace Patchproof.Core.Diagnosis;
 /// 0.1 % on each log-coefficient (a careful whole setup is accurate to about 0.1 %, Howe and Howe 1953) and 0.2 mV
 /// on each offset row.</para>
 /// <para>Columns: every part by its log-sensitivity on each row (resistor -1, capacitor -1, multiplier +1, inverter
-/// feedback +1 and input -1), each integrator's input offset (+1 on its own offset row, 5 mV tolerance: common
-/// practice for general-purpose op-amps, from memory), each probe gain (+1 on its own equation's rows, -p for each
+/// feedback +1 and input -1), each integrator's input offset (+1 on its own offset row, or S_j / b_j on the log row of
+/// the equation's constant term where the design has one; 5 mV tolerance: common practice for general-purpose op-amps,
+/// from memory), each probe gain (+1 on its own equation's rows, -p for each
 /// power p of its channel in a term's basis; a calibrated channel's prior is the calibration's, and the calibrated channels then
 /// share one more column for the reference probe's own gain error, at the probe tolerance), and the scope's time base.</para>
 /// </remarks>
@@ -125,7 +126,14 @@ public static class DesignDiagnosisBuilder
 
         foreach (var integrator in design.Integrators.Where(i => Observed(i.Variable)))
         {
-            var entries = rows.Select(row => row.Id == $"{integrator.Variable}':offset" ? 1.0 : 0.0).ToArray();
+            // Where the design has a constant term in this equation there is no offset row: the offset adds V_os S_j to
+            // that term instead, so it moves ln(b_j) by S_j / b_j per volt.
+            var conductance = inputConductance.GetValueOrDefault(integrator.Variable);
+            var entries = rowSources.Select(source =>
+                source.Row.Id == $"{integrator.Variable}':offset" ? 1.0
+                : source.Row.Kind is DiagnosisRowKind.LogCoefficient && terms[source.Parameter] is { Basis.IsConstant: true } constant && constant.Variable == integrator.Variable
+                    ? conductance / constant.NominalCoefficient
+                    : 0.0).ToArray();
             columns.Add(DiagnosisColumn.ForPartOffset($"{integrator.Variable}-integrator.offset", $"input offset of the {integrator.Variable} integrator's op-amp", OpAmpOffsetToleranceVolts, entries));
         }
 

@@ -83,9 +83,12 @@ public static class PartDiagnoser
                 NoteWhatACalibrationBuys(model, problem.Columns, loose, resolutions, options, notes);
             }
 
-            if (outcome is DiagnosisOutcome.WithinTolerance && uncalibrated.Count > 0)
+            if (outcome is DiagnosisOutcome.WithinTolerance)
             {
-                summary += HiddenByProbeGains(model, problem.Columns, loose, resolutions, options);
+                // After a calibration only the reference probe's own gain stays loose: it still mimics multiplier faults.
+                summary += uncalibrated.Count > 0
+                    ? HiddenByProbeGains(model, problem.Columns, loose, resolutions, options, "uncalibrated probe gains", "record a calibration capture to check them (docs/probe-calibration.md)")
+                    : HiddenByProbeGains(model, problem.Columns, loose, resolutions, options, "the reference probe's own gain, which a calibration capture does not measure,", "check that probe against a signal of known amplitude (docs/probe-calibration.md)");
             }
 
             findings = findings.Select(finding => WithGainDependence(model, problem.Columns, groups, winner, loose, finding, calibrated, options)).ToList();
@@ -299,17 +302,26 @@ public static class PartDiagnoser
 
     /// <summary>For a within-tolerance verdict: the parts that in-tolerance probe gains can mimic and that this capture cannot
     /// check to their band, so that "within tolerance" is not read as a clean bill for them.</summary>
-    private static string HiddenByProbeGains(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, IReadOnlyList<int> loose, IReadOnlyList<PartResolution> resolutions, DiagnosisOptions options)
+    private static string HiddenByProbeGains(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, IReadOnlyList<int> loose, IReadOnlyList<PartResolution> resolutions, DiagnosisOptions options, string what, string advice)
     {
+        // Offsets ride along: their tolerance (millivolts) leaves them nearly free on the rows they touch, so a gain pattern
+        // that reproduces a part everywhere except on a constant term's row still hides that part.
+        // A part the offsets mimic on their own is not the gains' doing and is left out.
+        var offsets = columns.Select((column, j) => (column, j))
+            .Where(pair => pair.column.Kind is DiagnosisColumnKind.PartOffset or DiagnosisColumnKind.ChannelOffset && model.IsObservable(pair.j))
+            .Select(pair => pair.j).ToList();
+        var span = loose.Concat(offsets).ToList();
         var hidden = columns.Select((column, j) => (column, j))
-            .Where(pair => pair.column.Kind is DiagnosisColumnKind.PartValue && model.IsObservable(pair.j) && model.SpanFit(pair.j, loose).CosineSquared >= options.GainMimicCosineSquared)
+            .Where(pair => pair.column.Kind is DiagnosisColumnKind.PartValue && model.IsObservable(pair.j)
+                && model.SpanFit(pair.j, span).CosineSquared >= options.GainMimicCosineSquared
+                && (offsets.Count == 0 || model.SpanFit(pair.j, offsets).CosineSquared < options.GainMimicCosineSquared))
             .Select(pair => (pair.column, sd: resolutions.First(r => r.ColumnId == pair.column.Id).FreedSd))
             .Where(pair => options.IntervalSigmas * pair.sd > pair.column.ToleranceBand)
             .ToList();
         return hidden.Count == 0
             ? ""
             : string.Create(CultureInfo.InvariantCulture,
-                $" But uncalibrated probe gains could hide a deviation of up to ± {100 * options.IntervalSigmas * hidden.Max(pair => pair.sd):0.0} % in {string.Join(", ", hidden.Select(pair => pair.column.Id))}: record a calibration capture to check them (docs/probe-calibration.md).");
+                $" But {what} could hide a deviation of up to ± {100 * options.IntervalSigmas * hidden.Max(pair => pair.sd):0.0} % in {string.Join(", ", hidden.Select(pair => pair.column.Id))}: {advice}.");
     }
 
     /// <summary>Names the parts that probe gains can mimic and what a calibration would resolve them to.</summary>
