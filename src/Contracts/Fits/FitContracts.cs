@@ -27,7 +27,9 @@ public enum FitState
 /// <param name="BoardId">The board.</param>
 /// <param name="DesignVersion">A version of the board's design.</param>
 /// <param name="CaptureIds">One or more captures of the same board.</param>
-public sealed record StartFitRequest(Guid BoardId, int DesignVersion, IReadOnlyList<Guid> CaptureIds);
+/// <param name="IgnoreBenchCalibration">True to fit with every channel at the stated probe tolerance instead of the bench's
+/// newest probe calibration; optional, false (use the calibration) when left out.</param>
+public sealed record StartFitRequest(Guid BoardId, int DesignVersion, IReadOnlyList<Guid> CaptureIds, bool IgnoreBenchCalibration = false);
 
 /// <summary>A fit job: its state, its progress and, once done, whether a result is there.</summary>
 /// <param name="Id">The fit's identifier.</param>
@@ -44,6 +46,7 @@ public sealed record StartFitRequest(Guid BoardId, int DesignVersion, IReadOnlyL
 /// <param name="CreatedAt">When the fit was requested (UTC).</param>
 /// <param name="StartedAt">When a process last took it (UTC), or null.</param>
 /// <param name="FinishedAt">When it reached a final state (UTC), or null.</param>
+/// <param name="IgnoreBenchCalibration">True when the fit was asked not to use the bench's probe calibration.</param>
 public sealed record FitResponse(
     Guid Id,
     Guid BoardId,
@@ -58,7 +61,8 @@ public sealed record FitResponse(
     bool HasResult,
     DateTimeOffset CreatedAt,
     DateTimeOffset? StartedAt,
-    DateTimeOffset? FinishedAt);
+    DateTimeOffset? FinishedAt,
+    bool IgnoreBenchCalibration = false);
 
 /// <summary>The result of a finished fit as the fit engine wrote it.</summary>
 /// <param name="FitId">The fit.</param>

@@ -19,6 +19,8 @@ namespace Patchproof.Contracts.Reports;
 /// <param name="Warnings">Why the findings may be unsafe, in plain words; empty when they are safe.</param>
 /// <param name="Notes">Further remarks of the diagnosis and of the server (for example which capture was fitted).</param>
 /// <param name="Fitted">What was fitted, and how the fit went.</param>
+/// <param name="Channels">The gain the fit assumed for each channel and where it came from; null in documents written before
+/// the gains were reported.</param>
 public sealed record FitResultDocument(
     string Format,
     int Version,
@@ -34,7 +36,8 @@ public sealed record FitResultDocument(
     PlotsDocument Plots,
     IReadOnlyList<string> Warnings,
     IReadOnlyList<string> Notes,
-    FitRunDocument Fitted)
+    FitRunDocument Fitted,
+    IReadOnlyList<ChannelGainDocument>? Channels = null)
 {
     /// <summary>The document's name.</summary>
     public const string FormatName = "patchproof-fit-result";
@@ -205,3 +208,15 @@ public sealed record DensityDifferenceDocument(
 /// <param name="ElapsedSeconds">Wall time of the fit.</param>
 /// <param name="CoreVersion">The numeric core that fitted.</param>
 public sealed record FitRunDocument(Guid CaptureId, string CaptureFileName, IReadOnlyList<string> Mapping, string Method, int Iterations, bool Converged, string ExitReason, double ElapsedSeconds, string CoreVersion);
+
+/// <summary>One channel as the fit took it: the variable it records, the gain assumed and where that gain came from.</summary>
+/// <param name="Channel">The channel, for example "CH2".</param>
+/// <param name="Variable">The variable it records.</param>
+/// <param name="Sign">+1, or -1 when the board outputs the variable inverted.</param>
+/// <param name="Gain">The channel's relative gain the fit divided it by (1 when uncalibrated), without the sign.</param>
+/// <param name="GainSdPercent">The prior standard deviation the diagnosis gave that gain, in percent.</param>
+/// <param name="GainSource">Where the gain and its prior came from, in words: the probe calibration, a stated prior, or the probe tolerance.</param>
+/// <param name="IsCalibrated">True when the gain came from a probe calibration.</param>
+/// <param name="OffsetVolts">The channel's fitted offset.</param>
+/// <param name="ResidualRmsVolts">RMS misfit of the fitted model to this channel.</param>
+public sealed record ChannelGainDocument(string Channel, string Variable, int Sign, double Gain, double GainSdPercent, string GainSource, bool IsCalibrated, double OffsetVolts, double ResidualRmsVolts);

@@ -186,7 +186,7 @@ public static class BoardFitter
             Offsets(design, field, fit, variables),
             channelIndex.Select((entry, c) => new ChannelCorrection(entry.Channel.Name, entry.Assignment.Variable, entry.Assignment.Sign,
                 fit.ChannelOffsetsVolts[c], fit.ChannelOffsetStandardErrors[c], fit.ChannelGains[c], Math.Abs(fit.ChannelGains[c]) * gains.LogSdOf(entry.Channel.Name), gains.SourceOf(entry.Channel.Name),
-                fit.ResidualRmsVolts[c])).ToList(),
+                fit.ResidualRmsVolts[c], gains.IsCalibrated(entry.Channel.Name))).ToList(),
             TimeConstants(design, diagnosis),
             new FitQuality("multiple shooting", fit.SegmentStates.Count, segmentSeconds, fit.Iterations, fit.ExitReason.ToString(), fit.Converged, fit.VarianceInflation, hiddenNotes, stopwatch.Elapsed.TotalSeconds),
             warnings)

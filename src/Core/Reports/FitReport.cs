@@ -93,7 +93,8 @@ public sealed record OffsetEstimate(string Equation, double VoltsPerSecond, doub
 /// <param name="GainStandardError">The prior sd the diagnosis gave that gain, in the gain's units.</param>
 /// <param name="GainSource">Where the gain and its prior came from: a calibration, a stated prior, or the probe tolerance.</param>
 /// <param name="ResidualRmsVolts">RMS misfit of the fitted model to this channel.</param>
-public sealed record ChannelCorrection(string Channel, string Variable, int Sign, double OffsetVolts, double OffsetStandardError, double Gain, double GainStandardError, string GainSource, double ResidualRmsVolts);
+/// <param name="IsCalibrated">True when <paramref name="Gain"/> came from a probe calibration.</param>
+public sealed record ChannelCorrection(string Channel, string Variable, int Sign, double OffsetVolts, double OffsetStandardError, double Gain, double GainStandardError, string GainSource, double ResidualRmsVolts, bool IsCalibrated = false);
 
 /// <summary>An integrator's time constant: the design's and what the board shows.</summary>
 /// <param name="Integrator">The integrator's variable.</param>

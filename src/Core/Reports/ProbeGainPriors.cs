@@ -57,6 +57,9 @@ internal sealed class ProbeGainPriors
     /// <summary>The gain's log-sd.</summary>
     public double LogSdOf(string channel) => channels[channel].LogSd;
 
+    /// <summary>True when the channel's gain came from the calibration.</summary>
+    public bool IsCalibrated(string channel) => channels[channel].Calibrated;
+
     /// <summary>Where the gain and its prior came from, in words.</summary>
     public string SourceOf(string channel) => channels[channel].Source;
 }

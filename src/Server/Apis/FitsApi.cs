@@ -75,6 +75,7 @@ internal static class FitsApi
             BoardId = request.BoardId,
             DesignVersionId = design.Id,
             State = FitState.Queued,
+            IgnoreBenchCalibration = request.IgnoreBenchCalibration,
             CreatedAtUnixMs = TimeStamps.ToUnixMs(time.GetUtcNow()),
             Captures = captureIds.Select((id, position) => new FitJobCaptureRecord { CaptureId = id, Position = position }).ToList(),
         };
@@ -156,11 +157,12 @@ internal static class FitsApi
             f.ResultJson != null,
             f.CreatedAtUnixMs,
             f.StartedAtUnixMs,
-            f.FinishedAtUnixMs));
+            f.FinishedAtUnixMs,
+            f.IgnoreBenchCalibration));
 
     private static FitResponse ToResponse(FitRow f) =>
         new(f.Id, f.BoardId, f.DesignVersion, f.CaptureIds, f.State, f.Progress, f.Stage, f.CancelRequested, f.Attempts, f.Error, f.HasResult,
-            TimeStamps.FromUnixMs(f.CreatedAtUnixMs), TimeStamps.FromUnixMs(f.StartedAtUnixMs), TimeStamps.FromUnixMs(f.FinishedAtUnixMs));
+            TimeStamps.FromUnixMs(f.CreatedAtUnixMs), TimeStamps.FromUnixMs(f.StartedAtUnixMs), TimeStamps.FromUnixMs(f.FinishedAtUnixMs), f.IgnoreBenchCalibration);
 
     private sealed record FitRow(
         Guid Id,
@@ -176,5 +178,6 @@ internal static class FitsApi
         bool HasResult,
         long CreatedAtUnixMs,
         long? StartedAtUnixMs,
-        long? FinishedAtUnixMs);
+        long? FinishedAtUnixMs,
+        bool IgnoreBenchCalibration);
 }

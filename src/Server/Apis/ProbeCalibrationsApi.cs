@@ -1,6 +1,10 @@
 using System.Text;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.WebUtilities;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.Net.Http.Headers;
+using Patchproof.Core;
+using Patchproof.Core.Captures;
 using Patchproof.Contracts.Benches;
 using Patchproof.Core.Captures.Calibration;
 using Patchproof.Server.Data;
@@ -8,16 +12,27 @@ using Patchproof.Server.Storage;
 
 namespace Patchproof.Server.Apis;
 
-/// <summary>A bench's probe calibrations (docs/probe-calibration.md): upload one made by <c>patchproof calibrate</c>, read the newest.
-/// Fits of the bench's boards use the newest one.</summary>
+/// <summary>A bench's probe calibrations (docs/probe-calibration.md): upload one made by <c>patchproof calibrate</c>, or a
+/// calibration capture for the server to calibrate; list them; read the newest. Fits of the bench's boards use the newest one.</summary>
 internal static class ProbeCalibrationsApi
 {
     private const int MaxDocumentBytes = 1 << 20;
+
+    // A calibration capture is a few seconds of three channels: tens of megabytes at most, far below the board capture limit.
+    private const long MaxCaptureBytes = 64L << 20;
 
     public static IEndpointRouteBuilder MapProbeCalibrationEndpoints(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/benches/{benchId:guid}/probe-calibrations").WithTags("Probe calibrations");
         group.MapPost("/", UploadAsync).WithName("UploadProbeCalibration").WithSummary("Stores a probe calibration file for the bench; later fits of its boards use the newest one.");
+        group.MapGet("/", ListAsync).WithName("ListProbeCalibrations").WithSummary("Lists the bench's probe calibrations, newest first, with each channel's gain and check.");
+        group.MapPost("/from-capture", CalibrateCaptureAsync).WithName("CalibrateProbeCapture")
+            .WithSummary("Calibrates the probes from one capture CSV (multipart/form-data, part 'file'; every probe on one node) and stores the result when it is usable.")
+            .Produces<ProbeCalibrationSummary>(StatusCodes.Status201Created)
+            .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
+            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType)
+            .ProducesProblem(StatusCodes.Status422UnprocessableEntity)
+            .DisableAntiforgery();
         group.MapGet("/newest", NewestAsync).WithName("GetNewestProbeCalibration").WithSummary("Reads the bench's newest probe calibration file.");
         return routes;
     }
@@ -50,7 +65,149 @@ internal static class ProbeCalibrationsApi
         }
 
         var uploaded = store.Save(benchId, document);
-        return TypedResults.Created($"/api/benches/{benchId}/probe-calibrations/newest", Summary(benchId, calibration, uploaded));
+        return TypedResults.Created($"/api/benches/{benchId}/probe-calibrations/newest", Summary(benchId, calibration, uploaded, []));
+    }
+
+    private static async Task<Results<Ok<List<ProbeCalibrationSummary>>, ProblemHttpResult>> ListAsync(Guid benchId, PatchproofDbContext db, ProbeCalibrationStore store, CancellationToken cancellationToken)
+    {
+        if (!await db.Benches.AnyAsync(b => b.Id == benchId, cancellationToken))
+        {
+            return ApiProblems.NotFound("bench", benchId);
+        }
+
+        return TypedResults.Ok(store.All(benchId).Select(entry => Summary(benchId, entry.Calibration, entry.UploadedAt, [])).ToList());
+    }
+
+    /// <summary>Reads the calibration capture into a temporary file, calibrates it and stores the calibration only when it is usable.</summary>
+    private static async Task<Results<Created<ProbeCalibrationSummary>, ProblemHttpResult>> CalibrateCaptureAsync(
+        Guid benchId, HttpRequest request, string? note, string? reference, PatchproofDbContext db, ProbeCalibrationStore store, TimeProvider time, CancellationToken cancellationToken)
+    {
+        if (!MediaTypeHeaderValue.TryParse(request.ContentType, out var mediaType)
+            || !mediaType.MediaType.Equals("multipart/form-data", StringComparison.OrdinalIgnoreCase)
+            || HeaderUtilities.RemoveQuotes(mediaType.Boundary).Value is not { Length: > 0 } boundary)
+        {
+            return TypedResults.Problem(statusCode: StatusCodes.Status415UnsupportedMediaType, title: "Unsupported media type",
+                detail: "Upload the calibration capture as multipart/form-data with the CSV in a part named 'file'.");
+        }
+
+        if (!await db.Benches.AnyAsync(b => b.Id == benchId, cancellationToken))
+        {
+            return ApiProblems.NotFound("bench", benchId);
+        }
+
+        var multipart = new MultipartReader(boundary, request.Body) { BodyLengthLimit = MaxCaptureBytes + 1 };
+        MultipartSection? section;
+        while ((section = await multipart.ReadNextSectionAsync(cancellationToken)) is not null)
+        {
+            if (ContentDispositionHeaderValue.TryParse(section.ContentDisposition, out var disposition)
+                && disposition.IsFileDisposition()
+                && string.Equals(HeaderUtilities.RemoveQuotes(disposition.Name).Value, "file", StringComparison.OrdinalIgnoreCase))
+            {
+                var fileName = Label(HeaderUtilities.RemoveQuotes(disposition.FileNameStar.HasValue ? disposition.FileNameStar : disposition.FileName).Value);
+                return await CalibrateFileAsync(benchId, fileName, section.Body, new ProbeCalibrationOptions { ReferenceChannel = Blank(reference), Note = Blank(note) ?? "" }, store, time, cancellationToken);
+            }
+        }
+
+        return TypedResults.Problem(statusCode: StatusCodes.Status400BadRequest, title: "No file", detail: "The upload has no file part named 'file'.");
+    }
+
+    private static async Task<Results<Created<ProbeCalibrationSummary>, ProblemHttpResult>> CalibrateFileAsync(
+        Guid benchId, string fileName, Stream body, ProbeCalibrationOptions options, ProbeCalibrationStore store, TimeProvider time, CancellationToken cancellationToken)
+    {
+        var tempPath = store.NewTempPath();
+        try
+        {
+            long length;
+            try
+            {
+                length = await CopyLimitedAsync(body, tempPath, cancellationToken);
+            }
+            catch (InvalidDataException)
+            {
+                length = -1;
+            }
+
+            if (length < 0)
+            {
+                return TypedResults.Problem(statusCode: StatusCodes.Status413PayloadTooLarge, title: "Calibration capture too large",
+                    detail: $"A calibration capture may have at most {MaxCaptureBytes / (1 << 20)} MiB; a few seconds of signal is enough.");
+            }
+
+            if (length == 0)
+            {
+                return TypedResults.Problem(statusCode: StatusCodes.Status422UnprocessableEntity, title: "Empty capture", detail: $"'{fileName}' is empty.");
+            }
+
+            ParseResult<Capture> read;
+            await using (var stream = new FileStream(tempPath, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan))
+            {
+                read = CaptureReader.Read(stream, fileName);
+            }
+
+            if (!read.TryGetValue(out var capture))
+            {
+                return LocatedProblems.Unreadable("The calibration capture cannot be read", fileName, read.Errors);
+            }
+
+            var result = ProbeCalibrator.Calibrate(capture, [fileName], options, time);
+            if (!result.IsUsable)
+            {
+                return TypedResults.Problem(
+                    statusCode: StatusCodes.Status422UnprocessableEntity,
+                    title: "The calibration capture is not usable",
+                    detail: $"'{fileName}': {result.Findings.FirstOrDefault() ?? result.Status.ToString()} Nothing was stored.",
+                    extensions: new Dictionary<string, object?>
+                    {
+                        ["file"] = fileName,
+                        ["status"] = result.Status.ToString(),
+                        ["errors"] = result.Findings,
+                    });
+            }
+
+            var uploaded = store.Save(benchId, ProbeCalibrationFile.Write(result.Calibration!));
+            return TypedResults.Created($"/api/benches/{benchId}/probe-calibrations/newest", Summary(benchId, result.Calibration!, uploaded, result.Findings));
+        }
+        finally
+        {
+            try
+            {
+                File.Delete(tempPath);
+            }
+            catch (IOException)
+            {
+                // A leftover temporary file is harmless; the upload's answer matters more.
+            }
+        }
+    }
+
+    private static async Task<long> CopyLimitedAsync(Stream body, string path, CancellationToken cancellationToken)
+    {
+        var buffer = new byte[1 << 16];
+        long length = 0;
+        await using var file = new FileStream(path, FileMode.CreateNew, FileAccess.Write, FileShare.None, 1, FileOptions.Asynchronous);
+        int read;
+        while ((read = await body.ReadAsync(buffer, cancellationToken)) > 0)
+        {
+            length += read;
+            if (length > MaxCaptureBytes)
+            {
+                return -1;
+            }
+
+            await file.WriteAsync(buffer.AsMemory(0, read), cancellationToken);
+        }
+
+        return length;
+    }
+
+    private static string? Blank(string? text) => string.IsNullOrWhiteSpace(text) ? null : text.Trim();
+
+    // The name is kept only as a label: strip any folder part and control characters.
+    private static string Label(string? fileName)
+    {
+        var name = Path.GetFileName((fileName ?? "").Replace('\\', '/'));
+        name = new string(name.Where(c => !char.IsControl(c)).ToArray());
+        return string.IsNullOrWhiteSpace(name) ? "calibration.csv" : name.Length > 200 ? name[..200] : name;
     }
 
     private static async Task<Results<ContentHttpResult, ProblemHttpResult>> NewestAsync(Guid benchId, PatchproofDbContext db, ProbeCalibrationStore store, CancellationToken cancellationToken)
@@ -65,8 +222,25 @@ internal static class ProbeCalibrationsApi
             : ApiProblems.NotFound("probe calibration of bench", benchId);
     }
 
-    private static ProbeCalibrationSummary Summary(Guid benchId, ProbeCalibration calibration, DateTimeOffset uploaded) =>
-        new(benchId, calibration.ReferenceChannel, calibration.Channels.Select(c => c.Channel).ToList(), calibration.CreatedAt, uploaded);
+    private static ProbeCalibrationSummary Summary(Guid benchId, ProbeCalibration calibration, DateTimeOffset uploaded, IReadOnlyList<string> findings)
+    {
+        var limits = new ProbeCalibrationOptions();
+        return new ProbeCalibrationSummary(benchId, calibration.ReferenceChannel, calibration.Channels.Select(c => c.Channel).ToList(), calibration.CreatedAt, uploaded)
+        {
+            Note = calibration.Note,
+            SampleCount = calibration.SampleCount,
+            DurationSeconds = calibration.DurationSeconds,
+            SourceFiles = calibration.SourceFiles,
+            ChannelDetails = calibration.Channels.Select(c =>
+            {
+                var isReference = string.Equals(c.Channel, calibration.ReferenceChannel, StringComparison.OrdinalIgnoreCase);
+                // A hand-written file may leave out the check's figures; then the check is unknown rather than failed.
+                bool? follows = isReference || c.ExpectedResidualRmsVolts <= 0 ? null : ProbeCalibrator.FollowsReference(c, limits);
+                return new ProbeChannelCalibrationSummary(c.Channel, isReference, c.Gain, c.GainSd, c.OffsetVolts, c.OffsetSdVolts, c.Correlation, c.ResidualRmsVolts, c.ExpectedResidualRmsVolts, follows);
+            }).ToList(),
+            Findings = findings,
+        };
+    }
 
     private static async Task<string?> ReadBodyAsync(HttpRequest request, CancellationToken cancellationToken)
     {

@@ -82,6 +82,7 @@ internal sealed class FitJobRecord
     public long? FinishedAtUnixMs { get; set; }
     public string? ResultJson { get; set; }
     public string? Error { get; set; }
+    public bool IgnoreBenchCalibration { get; set; }
     public List<FitJobCaptureRecord> Captures { get; set; } = [];
 }
 

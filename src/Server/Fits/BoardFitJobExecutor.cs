@@ -13,7 +13,8 @@ namespace Patchproof.Server.Fits;
 /// The channels are taken in file order for the design's variables (sign +1), as the core does when no mapping is given.
 /// Progress is the core's: its stages, one report per Levenberg-Marquardt iteration and one per finished comparison part,
 /// never decreasing; a cancel request stops the fit between iterations or inside the comparison. When the board's bench has a probe calibration (docs/probe-calibration.md), the newest one
-/// sets the probe gains, and the result's notes say so.
+/// sets the probe gains, and the result's notes say so; a fit started with <see cref="FitJobInput.IgnoreBenchCalibration"/>
+/// leaves it out, so every channel keeps the probe tolerance, and its notes say that instead.
 /// </remarks>
 internal sealed class BoardFitJobExecutor(TimeProvider clock, ProbeCalibrationStore? calibrations = null) : IFitJobExecutor
 {
@@ -50,7 +51,8 @@ internal sealed class BoardFitJobExecutor(TimeProvider clock, ProbeCalibrationSt
             return FitJobOutcome.Failed("The capture cannot be read: " + Describe(read.Errors));
         }
 
-        var calibration = input.BenchId is { } benchId ? calibrations?.Newest(benchId) : null;
+        var benchCalibration = input.BenchId is { } benchId ? calibrations?.Newest(benchId) : null;
+        var calibration = input.IgnoreBenchCalibration ? null : benchCalibration;
         var options = new BoardFitOptions
         {
             Cancellation = cancellationToken,
@@ -74,6 +76,11 @@ internal sealed class BoardFitJobExecutor(TimeProvider clock, ProbeCalibrationSt
         {
             notes.Add($"Probe gains from the bench's newest probe calibration (uploaded {used.UploadedAt:yyyy-MM-dd HH:mm} UTC, reference {used.Calibration.ReferenceChannel}).");
         }
+        else if (benchCalibration is { } skipped)
+        {
+            notes.Add($"The bench's probe calibration (uploaded {skipped.UploadedAt:yyyy-MM-dd HH:mm} UTC) was not used, as asked when the fit was started: every channel kept the stated probe tolerance.");
+        }
+
         return FitJobOutcome.Succeeded(FitResultJson.ToElement(FitResultMapper.Map(report, first.CaptureId, first.FileName, notes)));
     }
 

@@ -23,7 +23,8 @@ internal interface IFitJobExecutor
 /// <param name="Captures">The captures in the order requested.</param>
 /// <param name="Attempt">1 on the first run; higher when a previous process stopped mid-fit.</param>
 /// <param name="BenchId">The board's bench, whose newest probe calibration the fit uses; null when unknown.</param>
-internal sealed record FitJobInput(Guid FitId, Guid BoardId, int DesignVersion, string DesignDocument, IReadOnlyList<FitJobCapture> Captures, int Attempt, Guid? BenchId = null);
+/// <param name="IgnoreBenchCalibration">True when the fit was asked to keep every channel at the probe tolerance instead.</param>
+internal sealed record FitJobInput(Guid FitId, Guid BoardId, int DesignVersion, string DesignDocument, IReadOnlyList<FitJobCapture> Captures, int Attempt, Guid? BenchId = null, bool IgnoreBenchCalibration = false);
 
 /// <summary>A capture as a fit sees it: the file as received and the parsed samples beside it.</summary>
 /// <param name="CaptureId">The capture.</param>

@@ -40,7 +40,16 @@ internal static class FitResultMapper
                 report.Quality.Converged,
                 report.Quality.ExitReason,
                 report.Quality.ElapsedSeconds,
-                report.CoreVersion));
+                report.CoreVersion),
+            report.Channels.Select(ChannelGain).ToList());
+    }
+
+    private static ChannelGainDocument ChannelGain(ChannelCorrection channel)
+    {
+        var gain = Math.Abs(channel.Gain);
+        var sdPercent = gain > 0 ? 100 * channel.GainStandardError / gain : double.NaN;
+        return new ChannelGainDocument(channel.Channel, channel.Variable, channel.Sign, gain, sdPercent, channel.GainSource,
+            channel.IsCalibrated, channel.OffsetVolts, channel.ResidualRmsVolts);
     }
 
     private static IEnumerable<string> CheckNotes(FitReport report)

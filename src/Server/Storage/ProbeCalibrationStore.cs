@@ -28,13 +28,27 @@ internal sealed class ProbeCalibrationStore(IOptions<PatchproofOptions> options,
         return uploaded;
     }
 
+    /// <summary>A fresh path in the data folder's temporary area, for an uploaded calibration capture while it is read.</summary>
+    public string NewTempPath()
+    {
+        var temp = Path.Combine(options.Value.DataFolderPath, "tmp");
+        Directory.CreateDirectory(temp);
+        return Path.Combine(temp, $"{Guid.NewGuid():N}.calibration-capture");
+    }
+
     /// <summary>The bench's newest calibration as stored and read, or null when it has none.</summary>
-    public (ProbeCalibration Calibration, string Document, DateTimeOffset UploadedAt)? Newest(Guid benchId)
+    public (ProbeCalibration Calibration, string Document, DateTimeOffset UploadedAt)? Newest(Guid benchId) =>
+        Stored(benchId).Select(entry => ((ProbeCalibration, string, DateTimeOffset)?)entry).FirstOrDefault();
+
+    /// <summary>Every readable calibration of the bench, newest upload first.</summary>
+    public IReadOnlyList<(ProbeCalibration Calibration, string Document, DateTimeOffset UploadedAt)> All(Guid benchId) => Stored(benchId).ToList();
+
+    private IEnumerable<(ProbeCalibration Calibration, string Document, DateTimeOffset UploadedAt)> Stored(Guid benchId)
     {
         var folder = Path.Combine(Root, benchId.ToString("N"));
         if (!Directory.Exists(folder))
         {
-            return null;
+            yield break;
         }
 
         foreach (var path in Directory.GetFiles(folder, "*.json").OrderDescending(StringComparer.Ordinal))
@@ -42,10 +56,8 @@ internal sealed class ProbeCalibrationStore(IOptions<PatchproofOptions> options,
             var read = ProbeCalibrationFile.ReadFile(path);
             if (read.TryGetValue(out var calibration) && long.TryParse(Path.GetFileName(path).AsSpan(0, 15), out var unixMs))
             {
-                return (calibration, File.ReadAllText(path), DateTimeOffset.FromUnixTimeMilliseconds(unixMs));
+                yield return (calibration, File.ReadAllText(path), DateTimeOffset.FromUnixTimeMilliseconds(unixMs));
             }
         }
-
-        return null;
     }
 }

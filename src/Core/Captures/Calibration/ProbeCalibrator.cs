@@ -121,9 +121,10 @@ public static class ProbeCalibrator
             var residualRms = Math.Sqrt(Math.Max(0, syy - (2 * slope * sxy) + (slope * slope * sxx)));
             var expected = Math.Sqrt((errors[c].Sigma * errors[c].Sigma) + (slope * slope * errors[0].Sigma * errors[0].Sigma));
             var correlation = sxy / Math.Sqrt(sxx * syy);
-            channels.Add(new ChannelCalibration(ordered[c].Name, slope, Jackknife(blockSlopes), intercept, Jackknife(blockIntercepts), correlation, residualRms, expected, errors[c].Step));
+            var measured = new ChannelCalibration(ordered[c].Name, slope, Jackknife(blockSlopes), intercept, Jackknife(blockIntercepts), correlation, residualRms, expected, errors[c].Step);
+            channels.Add(measured);
 
-            if (!(residualRms <= options.ResidualRatioLimit * expected) || !(correlation >= options.MinimumCorrelation))
+            if (!FollowsReference(measured, options))
             {
                 status = status is ProbeCalibrationStatus.Calibrated ? ProbeCalibrationStatus.NotOneSignal : status;
                 findings.Add(string.Create(CultureInfo.InvariantCulture,
@@ -139,6 +140,17 @@ public static class ProbeCalibrator
         var calibration = new ProbeCalibration(reference.Name, channels, kept.Length, kept.Length * capture.TimeBase.DurationSeconds / Math.Max(1, capture.SampleCount),
             sourceFiles.ToArray(), clock.GetUtcNow(), options.Note);
         return new ProbeCalibrationResult(status, calibration, findings);
+    }
+
+    /// <summary>The one-signal check of one calibrated channel: its residual RMS within the limit times the expected one, and its correlation with the reference high enough.</summary>
+    /// <param name="channel">A channel other than the reference, as measured.</param>
+    /// <param name="options">The check limits (<see cref="ProbeCalibrationOptions.ResidualRatioLimit"/>, <see cref="ProbeCalibrationOptions.MinimumCorrelation"/>).</param>
+    /// <returns>True when the channel saw the same signal as the reference.</returns>
+    public static bool FollowsReference(ChannelCalibration channel, ProbeCalibrationOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(channel);
+        ArgumentNullException.ThrowIfNull(options);
+        return channel.ResidualRmsVolts <= options.ResidualRatioLimit * channel.ExpectedResidualRmsVolts && channel.Correlation >= options.MinimumCorrelation;
     }
 
     /// <summary>Sample indices where no channel sits at a clipped level.</summary>

@@ -122,6 +122,7 @@ namespace Patchproof.Server.Data.Migrations
                     b.Property<Guid>("DesignVersionId");
                     b.Property<string>("Error");
                     b.Property<long?>("FinishedAtUnixMs");
+                    b.Property<bool>("IgnoreBenchCalibration");
                     b.Property<long?>("LeaseExpiresAtUnixMs");
                     b.Property<string>("LeaseOwner");
                     b.Property<Guid?>("LeaseToken");
