@@ -46,6 +46,9 @@ public sealed record FitJob(
     DateTimeOffset CreatedAt,
     DateTimeOffset? FinishedAt)
 {
+    /// <summary>True when the fit was asked not to use the bench's probe calibration.</summary>
+    public bool IgnoresBenchCalibration { get; init; }
+
     /// <summary>True while the fit can still change: queued or running.</summary>
     public bool IsActive => State is FitJobState.Queued or FitJobState.Running;
 }

@@ -112,4 +112,7 @@ public sealed record FitReportView(
 
     /// <summary>Further remarks of the diagnosis and the server.</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
+
+    /// <summary>The gain the fit assumed for each channel and where it came from; empty in reports of older engines.</summary>
+    public IReadOnlyList<ChannelGainView> Channels { get; init; } = [];
 }

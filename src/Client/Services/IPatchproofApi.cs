@@ -22,6 +22,16 @@ public interface IPatchproofApi
     /// <summary>Records a new bench or class.</summary>
     Task<ApiResult<BenchSummary>> CreateBenchAsync(NewBench bench, CancellationToken cancellationToken = default);
 
+    /// <summary>Lists a bench's probe calibrations, newest (the one fits use) first; empty when it has none.</summary>
+    Task<ApiResult<IReadOnlyList<ProbeCalibrationView>>> ListProbeCalibrationsAsync(Guid benchId, CancellationToken cancellationToken = default);
+
+    /// <summary>Sends a calibration capture (one CSV, every probe on one node) for the server to calibrate and, when usable, keep as the bench's newest calibration.</summary>
+    /// <param name="benchId">The bench.</param>
+    /// <param name="file">The capture file.</param>
+    /// <param name="note">Free text kept with the calibration, for example which node the probes sat on; null for none.</param>
+    /// <param name="cancellationToken">Stops the call.</param>
+    Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, string? note, CancellationToken cancellationToken = default);
+
     /// <summary>Lists the boards of a bench.</summary>
     Task<ApiResult<IReadOnlyList<BoardSummary>>> ListBoardsAsync(Guid benchId, CancellationToken cancellationToken = default);
 
@@ -62,7 +72,12 @@ public interface IPatchproofApi
     Task<ApiResult<IReadOnlyList<FitJob>>> ListFitsAsync(Guid boardId, CancellationToken cancellationToken = default);
 
     /// <summary>Queues a fit of a design version against captures of the board.</summary>
-    Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, CancellationToken cancellationToken = default);
+    /// <param name="boardId">The board.</param>
+    /// <param name="designVersion">The design version to fit.</param>
+    /// <param name="captureIds">The captures to fit.</param>
+    /// <param name="ignoreBenchCalibration">True to fit with every channel at the probe tolerance instead of the bench's newest probe calibration.</param>
+    /// <param name="cancellationToken">Stops the call.</param>
+    Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, bool ignoreBenchCalibration = false, CancellationToken cancellationToken = default);
 
     /// <summary>Reads a fit's state and progress.</summary>
     Task<ApiResult<FitJob>> GetFitAsync(Guid fitId, CancellationToken cancellationToken = default);

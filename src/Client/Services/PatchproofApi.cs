@@ -32,6 +32,24 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
         SendAsync<BenchWire, BenchSummary>(() => PostJson("api/benches", bench), w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
+    public Task<ApiResult<IReadOnlyList<ProbeCalibrationView>>> ListProbeCalibrationsAsync(Guid benchId, CancellationToken cancellationToken = default) =>
+        GetListAsync<ProbeCalibrationWire, ProbeCalibrationView>($"api/benches/{benchId}/probe-calibrations", w => w.ToView(), cancellationToken);
+
+    /// <inheritdoc />
+    public Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, string? note, CancellationToken cancellationToken = default) =>
+        SendAsync<ProbeCalibrationWire, ProbeCalibrationView>(
+            () =>
+            {
+                var body = new StreamContent(file.OpenRead());
+                body.Headers.ContentType = new MediaTypeHeaderValue(string.IsNullOrEmpty(file.ContentType) ? "text/csv" : file.ContentType);
+                var form = new MultipartFormDataContent { { body, "file", file.FileName } };
+                var query = string.IsNullOrWhiteSpace(note) ? "" : "?note=" + Uri.EscapeDataString(note.Trim());
+                return new HttpRequestMessage(HttpMethod.Post, $"api/benches/{benchId}/probe-calibrations/from-capture{query}") { Content = form };
+            },
+            w => w.ToView(),
+            cancellationToken);
+
+    /// <inheritdoc />
     public Task<ApiResult<IReadOnlyList<BoardSummary>>> ListBoardsAsync(Guid benchId, CancellationToken cancellationToken = default) =>
         GetListAsync<BoardWire, BoardSummary>($"api/benches/{benchId}/boards", w => w.ToView(), cancellationToken);
 
@@ -106,8 +124,8 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
         GetListAsync<FitResponse, FitJob>($"api/boards/{boardId}/fits", w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
-    public Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, CancellationToken cancellationToken = default) =>
-        SendAsync<FitResponse, FitJob>(() => PostJson("api/fits", new StartFitWire(boardId, designVersion, captureIds)), w => w.ToView(), cancellationToken);
+    public Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, bool ignoreBenchCalibration = false, CancellationToken cancellationToken = default) =>
+        SendAsync<FitResponse, FitJob>(() => PostJson("api/fits", new StartFitWire(boardId, designVersion, captureIds, ignoreBenchCalibration)), w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
     public Task<ApiResult<FitJob>> GetFitAsync(Guid fitId, CancellationToken cancellationToken = default) =>
@@ -140,6 +158,7 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
         {
             Warnings = s.Warnings,
             Notes = s.Notes,
+            Channels = s.Channels,
         });
     }
 

@@ -58,6 +58,8 @@ public static class ProblemReader
     private static List<string> ReadLocations(JsonElement root)
     {
         var locations = new List<string>();
+        // Located errors of one uploaded file come with the file's name beside them, not in each error.
+        var file = root.TryGetProperty("file", out var f) && f.ValueKind == JsonValueKind.String && f.GetString() is { Length: > 0 } name ? name + ", " : "";
         if (!root.TryGetProperty("errors", out var errors))
         {
             return locations;
@@ -76,7 +78,7 @@ public static class ProblemReader
                     var line = error.TryGetProperty("line", out var l) && l.TryGetInt32(out var li) ? li : 0;
                     var column = error.TryGetProperty("column", out var c) && c.TryGetInt32(out var ci) ? ci : 0;
                     var message = error.TryGetProperty("message", out var m) ? m.GetString() : error.ToString();
-                    locations.Add(line > 0 ? $"line {line}{(column > 0 ? $", column {column}" : "")}: {message}" : message ?? "");
+                    locations.Add(line > 0 ? $"{file}line {line}{(column > 0 ? $", column {column}" : "")}: {message}" : message ?? "");
                 }
             }
         }

@@ -7,7 +7,7 @@ namespace Patchproof.Client.Services;
 /// <summary>Reads the fit engine's result document (the <c>result</c> of a report) into the report page's sections.</summary>
 /// <remarks>
 /// The document is camel-case JSON: <c>summary</c>, <c>findings</c>, <c>coefficients</c>, <c>offsets</c>,
-/// <c>timeScale</c>, <c>invariants</c>, <c>structureCheck</c>, <c>plots</c>, <c>warnings</c> and <c>notes</c> (see docs/web-app.md). A section the
+/// <c>timeScale</c>, <c>invariants</c>, <c>structureCheck</c>, <c>plots</c>, <c>warnings</c>, <c>notes</c> and <c>channels</c> (see docs/web-app.md). A section the
 /// document lacks comes back empty, so a report of an older engine still opens; a document that is not an object
 /// comes back as a problem.
 /// </remarks>
@@ -44,6 +44,9 @@ public static class ReportDocumentReader
 
         /// <summary>Further remarks of the diagnosis and the server.</summary>
         public IReadOnlyList<string> Notes { get; init; } = [];
+
+        /// <summary>The gain the fit assumed for each channel and where it came from.</summary>
+        public IReadOnlyList<ChannelGainView> Channels { get; init; } = [];
     }
 
     private sealed record Document(
@@ -56,7 +59,8 @@ public static class ReportDocumentReader
         StructureCheckView? StructureCheck,
         PlotsDocument? Plots,
         List<string>? Warnings,
-        List<string>? Notes);
+        List<string>? Notes,
+        List<ChannelGainView>? Channels = null);
 
     private sealed record PlotsDocument(
         List<OverlayPlot>? PhasePlanes,
@@ -105,6 +109,7 @@ public static class ReportDocumentReader
         {
             Warnings = document.Warnings ?? [],
             Notes = document.Notes ?? [],
+            Channels = document.Channels ?? [],
         });
     }
 }

@@ -16,6 +16,12 @@ internal sealed class FakePatchproofApi : IPatchproofApi
 
     public Func<NewBench, Task<ApiResult<BenchSummary>>> CreateBench { get; set; } = _ => NotSet<BenchSummary>();
 
+    public Task<ApiResult<IReadOnlyList<ProbeCalibrationView>>> Calibrations { get; set; } = NotSet<IReadOnlyList<ProbeCalibrationView>>();
+
+    public Func<UploadFile, string?, Task<ApiResult<ProbeCalibrationView>>> Calibrate { get; set; } = (_, _) => NotSet<ProbeCalibrationView>();
+
+    public bool? LastFitIgnoredBenchCalibration { get; private set; }
+
     public Task<ApiResult<IReadOnlyList<BoardSummary>>> Boards { get; set; } = NotSet<IReadOnlyList<BoardSummary>>();
 
     public Func<NewBoard, Task<ApiResult<BoardSummary>>> CreateBoard { get; set; } = _ => NotSet<BoardSummary>();
@@ -72,6 +78,10 @@ internal sealed class FakePatchproofApi : IPatchproofApi
 
     public Task<ApiResult<BenchSummary>> CreateBenchAsync(NewBench bench, CancellationToken cancellationToken = default) => CreateBench(bench);
 
+    public Task<ApiResult<IReadOnlyList<ProbeCalibrationView>>> ListProbeCalibrationsAsync(Guid benchId, CancellationToken cancellationToken = default) => Calibrations;
+
+    public Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, string? note, CancellationToken cancellationToken = default) => Calibrate(file, note);
+
     public Task<ApiResult<IReadOnlyList<BoardSummary>>> ListBoardsAsync(Guid benchId, CancellationToken cancellationToken = default) => Boards;
 
     public Task<ApiResult<BoardSummary>> CreateBoardAsync(Guid benchId, NewBoard board, CancellationToken cancellationToken = default) => CreateBoard(board);
@@ -98,7 +108,11 @@ internal sealed class FakePatchproofApi : IPatchproofApi
 
     public Task<ApiResult<IReadOnlyList<FitJob>>> ListFitsAsync(Guid boardId, CancellationToken cancellationToken = default) => Fits;
 
-    public Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, CancellationToken cancellationToken = default) => StartFit(designVersion, captureIds);
+    public Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, bool ignoreBenchCalibration = false, CancellationToken cancellationToken = default)
+    {
+        LastFitIgnoredBenchCalibration = ignoreBenchCalibration;
+        return StartFit(designVersion, captureIds);
+    }
 
     public Task<ApiResult<FitJob>> GetFitAsync(Guid fitId, CancellationToken cancellationToken = default)
     {

@@ -17,6 +17,16 @@ public sealed class ProblemReaderTests
     }
 
     [Fact]
+    public void Parse_ProblemNamingItsFile_PutsTheFileBesideEachLocatedError()
+    {
+        const string body = """{ "title": "The calibration capture cannot be read", "file": "cal.csv", "line": 5, "column": 2, "errors": [ { "line": 5, "column": 2, "message": "'x' is not a number." } ] }""";
+
+        var problem = ProblemReader.Parse(422, body, "fallback");
+
+        Assert.Equal(["cal.csv, line 5, column 2: 'x' is not a number."], problem.Locations);
+    }
+
+    [Fact]
     public void Parse_ValidationDictionary_FlattensFieldMessages()
     {
         const string body = """{ "title": "One or more validation errors occurred.", "errors": { "Name": ["Required."] } }""";

@@ -32,7 +32,7 @@ public sealed class ClientAgreementTests
         var mapping = await client.CheckMappingAsync(upload.Value.Id, 1, [new ChannelMapping("CH1", "x", 1), new ChannelMapping("CH2", "y", 1)], token);
         Assert.True(mapping.Succeeded, mapping.Problem?.ToText());
 
-        var started = await client.StartFitAsync(board.Id, 1, [upload.Value.Id], token);
+        var started = await client.StartFitAsync(board.Id, 1, [upload.Value.Id], cancellationToken: token);
         Assert.True(started.Succeeded, started.Problem?.ToText());
         await api.WaitForFitAsync(started.Value.Id, ApiTest.IsFinal, TimeSpan.FromMinutes(3));
         var fit = (await client.GetFitAsync(started.Value.Id, token)).Value;

@@ -19,7 +19,19 @@ internal static class WireMapping
 
     public static FitJob ToView(this FitResponse w) => new(
         w.Id, w.BoardId, w.DesignVersion, w.CaptureIds ?? [], ToState(w.State), w.Progress, w.Stage, w.CancelRequested, w.Error,
-        w.HasResult, w.CreatedAt, w.FinishedAt);
+        w.HasResult, w.CreatedAt, w.FinishedAt)
+    {
+        IgnoresBenchCalibration = w.IgnoreBenchCalibration,
+    };
+
+    public static ProbeCalibrationView ToView(this ProbeCalibrationWire w)
+    {
+        // A summary from a server that lists only channel names still shows them, without gains.
+        var details = w.ChannelDetails is { Count: > 0 } given
+            ? given.Select(c => new ProbeChannelView(c.Channel, c.IsReference, c.Gain, c.GainSd, c.OffsetVolts, c.OffsetSdVolts, c.Correlation, c.ResidualRmsVolts, c.ExpectedResidualRmsVolts, c.FollowsReference)).ToList()
+            : (w.Channels ?? []).Select(name => new ProbeChannelView(name, name == w.ReferenceChannel, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, null)).ToList();
+        return new ProbeCalibrationView(w.BenchId, w.ReferenceChannel, w.CreatedAt, w.UploadedAt, w.Note ?? "", w.SampleCount, w.DurationSeconds, w.SourceFiles ?? [], details, w.Findings ?? []);
+    }
 
     public static ChannelMapping ToView(this ChannelMappingWire w) => new(w.Channel, w.Variable, w.Sign < 0 ? -1 : 1);
 
