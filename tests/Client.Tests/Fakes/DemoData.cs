@@ -59,4 +59,19 @@ internal static class DemoData
         new(true, "No missing or extra term: the design's structure explains the capture."),
         new([Plane("x against z")], [], null, [], []),
         new($"api/fits/{FitId}/report", $"api/fits/{FitId}/report.csv", $"api/fits/{FitId}/report.html"));
+
+    public static ProbeCalibrationView ProbeCalibration(double gain = 1.0183, bool followsReference = true) => new(
+        BenchId,
+        "CH1",
+        At,
+        At.AddMinutes(2),
+        "x integrator output, QH-L4",
+        20_000,
+        0.2,
+        ["cal.csv"],
+        [
+            new ProbeChannelView("CH1", true, 1, 0, 0, 0, 1, 0, 0.016, null),
+            new ProbeChannelView("CH2", false, gain, 4.1e-5, -0.0251, 0.00022, 0.99997, 0.0161, 0.0158, followsReference),
+        ],
+        []);
 }

@@ -126,4 +126,44 @@ public sealed class BoardPageTests : BunitContext
 
         cut.WaitForAssertion(() => Assert.Contains("This server cannot run fits yet.", cut.Find(".start-fit .problem-notice").TextContent, StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void StartFit_BenchHasACalibration_SaysTheFitUsesItUnlessTold()
+    {
+        GiveHistory([new DesignVersionEntry(1, null, DemoData.At)], [DemoData.Capture()], []);
+        api.Calibrations = FakePatchproofApi.Ok<IReadOnlyList<ProbeCalibrationView>>([DemoData.ProbeCalibration()]);
+        api.StartFit = (_, _) => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Queued));
+        var cut = RenderPage();
+        cut.WaitForAssertion(() => Assert.Contains("uses the bench's probe calibration of 2026-11-30 14:07 UTC", cut.Find(".calibration-status").TextContent, StringComparison.Ordinal));
+
+        cut.Find(".start-fit form").Submit();
+
+        Assert.False(api.LastFitIgnoredBenchCalibration);
+    }
+
+    [Fact]
+    public void StartFit_WithoutTheBenchCalibration_AsksTheServerToLeaveItOut()
+    {
+        GiveHistory([new DesignVersionEntry(1, null, DemoData.At)], [DemoData.Capture()], []);
+        api.Calibrations = FakePatchproofApi.Ok<IReadOnlyList<ProbeCalibrationView>>([DemoData.ProbeCalibration()]);
+        api.StartFit = (_, _) => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Queued));
+        var cut = RenderPage();
+        cut.WaitForAssertion(() => cut.Find("#fit-ignore-calibration"));
+
+        cut.Find("#fit-ignore-calibration").Change(true);
+        cut.Find(".start-fit form").Submit();
+
+        Assert.True(api.LastFitIgnoredBenchCalibration);
+    }
+
+    [Fact]
+    public void Render_BenchWithoutCalibration_SaysEveryChannelKeepsTheProbeTolerance()
+    {
+        GiveHistory([new DesignVersionEntry(1, null, DemoData.At)], [DemoData.Capture()], []);
+        api.Calibrations = FakePatchproofApi.Ok<IReadOnlyList<ProbeCalibrationView>>([]);
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Contains("no probe calibration: every channel is taken at the stated probe tolerance", cut.Find(".calibration-status").TextContent, StringComparison.Ordinal));
+    }
 }

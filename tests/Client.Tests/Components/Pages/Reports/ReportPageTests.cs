@@ -123,4 +123,46 @@ public sealed class ReportPageTests : BunitContext
             Assert.Contains("This report carries no comparison series.", cut.Markup, StringComparison.Ordinal);
         });
     }
+
+    [Fact]
+    public void Render_WithChannelGains_ShowsEachGainAndWhereItCameFrom()
+    {
+        api.Report = FakePatchproofApi.Ok(DemoData.Report with
+        {
+            Channels =
+            [
+                new ChannelGainView("CH1", "x", 1, 1, 0.2, "calibration against CH1 (2026-11-30), ± 0.20 %; the shared reference probe at its 2 % tolerance", true),
+                new ChannelGainView("CH2", "y", -1, 1.0183, 0.2, "calibration against CH1 (2026-11-30), ± 0.20 %; the shared reference probe at its 2 % tolerance", true),
+            ],
+        });
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() =>
+        {
+            var rows = cut.FindAll(".channel-gains tbody tr");
+            Assert.Equal(2, rows.Count);
+            Assert.Contains("−y", rows[1].TextContent, StringComparison.Ordinal);
+            Assert.Contains("1.0183", rows[1].TextContent, StringComparison.Ordinal);
+            Assert.Contains("calibration against CH1", rows[1].TextContent, StringComparison.Ordinal);
+            Assert.DoesNotContain("No probe calibration was used", cut.Find(".channel-gains").TextContent, StringComparison.Ordinal);
+        });
+    }
+
+    [Fact]
+    public void Render_GainsFromTheProbeTolerance_SaysNoCalibrationWasUsed()
+    {
+        api.Report = FakePatchproofApi.Ok(DemoData.Report with
+        {
+            Channels = [new ChannelGainView("CH1", "x", 1, 1, 0.5, "probe tolerance 2 %, ± 0.50 %", false)],
+        });
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() =>
+        {
+            Assert.Contains("probe tolerance 2 %", cut.Find(".channel-gains tbody").TextContent, StringComparison.Ordinal);
+            Assert.Contains("No probe calibration was used", cut.Find(".channel-gains").TextContent, StringComparison.Ordinal);
+        });
+    }
 }
