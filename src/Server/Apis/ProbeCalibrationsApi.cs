@@ -159,7 +159,7 @@ internal static class ProbeCalibrationsApi
                     extensions: new Dictionary<string, object?>
                     {
                         ["file"] = fileName,
-                        ["status"] = result.Status.ToString(),
+                        ["calibrationStatus"] = result.Status.ToString(),
                         ["errors"] = result.Findings,
                     });
             }

@@ -33,6 +33,40 @@ public abstract class FitsApiTests(ServerDatabase database)
     }
 
     [Fact]
+    public async Task StartFit_ToldToIgnoreTheBenchCalibration_KeepsTheChoiceAndHandsItToTheEngine()
+    {
+        await using var api = ApiTest.Start(database, new TestServerSettings { Executor = new ScriptedFitExecutor() });
+        var (board, design, capture) = await api.CreateFittableBoardAsync();
+
+        using var response = await api.Client.PostAsJsonAsync("/api/fits", new StartFitRequest(board.Id, design.Version, [capture], IgnoreBenchCalibration: true), ApiTest.Token);
+        var started = (await response.Content.ReadFromJsonAsync<FitResponse>(ApiTest.Token))!;
+        var done = await api.WaitForFitAsync(started.Id, ApiTest.IsFinal);
+
+        Assert.Equal(HttpStatusCode.Accepted, response.StatusCode);
+        Assert.True(started.IgnoreBenchCalibration);
+        Assert.True(done.IgnoreBenchCalibration);
+        Assert.True(api.Host.Executor!.InputOf(started.Id)!.IgnoreBenchCalibration);
+    }
+
+    [Fact]
+    public async Task StartFit_RequestWithoutTheCalibrationField_UsesTheBenchCalibration()
+    {
+        await using var api = ApiTest.Start(database, new TestServerSettings { Executor = new ScriptedFitExecutor() });
+        var (board, design, capture) = await api.CreateFittableBoardAsync();
+
+        // The body as clients written before the field existed send it.
+        using var response = await api.Client.PostAsJsonAsync("/api/fits", new { boardId = board.Id, designVersion = design.Version, captureIds = new[] { capture } }, ApiTest.Token);
+        var started = (await response.Content.ReadFromJsonAsync<FitResponse>(ApiTest.Token))!;
+        await api.WaitForFitAsync(started.Id, ApiTest.IsFinal);
+
+        Assert.Equal(HttpStatusCode.Accepted, response.StatusCode);
+        Assert.False(started.IgnoreBenchCalibration);
+        var input = api.Host.Executor!.InputOf(started.Id)!;
+        Assert.False(input.IgnoreBenchCalibration);
+        Assert.NotNull(input.BenchId);
+    }
+
+    [Fact]
     public async Task GetFit_WhileRunning_ShowsTheEnginesProgress()
     {
         var executor = new ScriptedFitExecutor { Script = FitScript.BlockUntilReleased };

@@ -63,6 +63,83 @@ public abstract class ProbeCalibrationsApiTests(ServerDatabase database)
         await ApiTest.ReadProblemAsync(response, HttpStatusCode.NotFound);
     }
 
+    [Fact]
+    public async Task CalibrateFromCapture_ProbesOnOneNode_StoresTheGainsAndListsThemNewestFirst()
+    {
+        await using var api = ApiTest.Start(database);
+        var bench = await api.CreateBenchAsync("Bench 12");
+
+        // Known by construction: CH2 reads 1.018 times what CH1 reads.
+        using var response = await PostCaptureAsync(api, bench.Id, CalibrationCaptureFiles.Csv([1.0, 1.018], seed: 3), "wren-cal.csv", "x output");
+        var listed = await api.Client.GetFromJsonAsync<List<ProbeCalibrationSummary>>($"/api/benches/{bench.Id}/probe-calibrations", ApiTest.Token);
+        var newest = await api.Client.GetStringAsync($"/api/benches/{bench.Id}/probe-calibrations/newest", ApiTest.Token);
+
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        var summary = (await response.Content.ReadFromJsonAsync<ProbeCalibrationSummary>(ApiTest.Token))!;
+        Assert.Equal("CH1", summary.ReferenceChannel);
+        Assert.Equal("x output", summary.Note);
+        Assert.Equal(["wren-cal.csv"], summary.SourceFiles);
+        var ch2 = Assert.Single(summary.ChannelDetails, c => c.Channel == "CH2");
+        Assert.InRange(ch2.Gain, 1.018 - (3 * ch2.GainSd), 1.018 + (3 * ch2.GainSd));
+        Assert.True(ch2.FollowsReference);
+        Assert.True(Assert.Single(summary.ChannelDetails, c => c.Channel == "CH1").IsReference);
+        Assert.Equal(ch2.Gain, Assert.Single(listed!).ChannelDetails.Single(c => c.Channel == "CH2").Gain);
+        Assert.Equal(ch2.Gain, ProbeCalibrationFile.Read(newest).Value.Find("CH2")!.Gain);
+    }
+
+    [Fact]
+    public async Task CalibrateFromCapture_UnreadableCsv_AnswersWithFileLineAndColumnAndStoresNothing()
+    {
+        await using var api = ApiTest.Start(database);
+        var bench = await api.CreateBenchAsync("Bench 13");
+        var csv = Encoding.ASCII.GetBytes("time_s,CH1,CH2\n0,1,1\n1e-5,1,x\n2e-5,1,1\n");
+
+        using var response = await PostCaptureAsync(api, bench.Id, csv, "broken-cal.csv", null);
+        var listed = await api.Client.GetFromJsonAsync<List<ProbeCalibrationSummary>>($"/api/benches/{bench.Id}/probe-calibrations", ApiTest.Token);
+
+        var problem = await ApiTest.ReadProblemAsync(response, HttpStatusCode.UnprocessableEntity);
+        Assert.Equal("broken-cal.csv", problem.GetProperty("file").GetString());
+        Assert.Equal(3, problem.GetProperty("line").GetInt32());
+        Assert.True(problem.GetProperty("column").GetInt32() > 0);
+        Assert.Empty(listed!);
+    }
+
+    [Fact]
+    public async Task CalibrateFromCapture_ProbesOnDifferentNodes_RefusesWithTheCheckAndStoresNothing()
+    {
+        await using var api = ApiTest.Start(database);
+        var bench = await api.CreateBenchAsync("Bench 14");
+
+        using var response = await PostCaptureAsync(api, bench.Id, CalibrationCaptureFiles.Csv([1.0, 1.0], seed: 5, secondChannelOnAnotherNode: true), "two-nodes.csv", null);
+        using var newest = await api.Client.GetAsync($"/api/benches/{bench.Id}/probe-calibrations/newest", ApiTest.Token);
+
+        var problem = await ApiTest.ReadProblemAsync(response, HttpStatusCode.UnprocessableEntity);
+        Assert.Equal("NotOneSignal", problem.GetProperty("calibrationStatus").GetString());
+        Assert.Contains("CH2 does not follow CH1", problem.GetProperty("errors")[0].GetString(), StringComparison.Ordinal);
+        Assert.Contains("Nothing was stored", problem.GetProperty("detail").GetString(), StringComparison.Ordinal);
+        Assert.Equal(HttpStatusCode.NotFound, newest.StatusCode);
+    }
+
+    [Fact]
+    public async Task List_BenchWithoutCalibration_IsEmpty()
+    {
+        await using var api = ApiTest.Start(database);
+        var bench = await api.CreateBenchAsync("Bench 15");
+
+        var listed = await api.Client.GetFromJsonAsync<List<ProbeCalibrationSummary>>($"/api/benches/{bench.Id}/probe-calibrations", ApiTest.Token);
+
+        Assert.Empty(listed!);
+    }
+
+    private static async Task<HttpResponseMessage> PostCaptureAsync(ApiTest api, Guid benchId, byte[] csv, string fileName, string? note)
+    {
+        using var file = new ByteArrayContent(csv);
+        file.Headers.ContentType = new System.Net.Http.Headers.MediaTypeHeaderValue("text/csv");
+        using var form = new MultipartFormDataContent { { file, "file", fileName } };
+        var query = note is null ? "" : "?note=" + Uri.EscapeDataString(note);
+        return await api.Client.PostAsync($"/api/benches/{benchId}/probe-calibrations/from-capture{query}", form, ApiTest.Token);
+    }
+
     private static async Task<HttpResponseMessage> PostAsync(ApiTest api, Guid benchId, string document)
     {
         using var content = new StringContent(document, Encoding.UTF8, "application/json");

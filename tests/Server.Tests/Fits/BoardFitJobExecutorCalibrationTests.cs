@@ -32,6 +32,34 @@ public sealed class BoardFitJobExecutorCalibrationTests : IDisposable
         Assert.NotNull(document);
         Assert.Contains(document.Notes, n => n.StartsWith("Probe gains from the bench's newest probe calibration (uploaded 2026-12-01 12:05 UTC", StringComparison.Ordinal));
         Assert.Equal(1.004, store.Newest(bench)!.Value.Calibration.Find("CH2")!.Gain);
+        var ch2 = Assert.Single(document.Channels!, c => c.Channel == "CH2");
+        Assert.True(ch2.IsCalibrated);
+        Assert.Equal(1.004, ch2.Gain, 12);
+        Assert.StartsWith("calibration against CH1", ch2.GainSource, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Execute_ToldToIgnoreTheBenchCalibration_KeepsEveryChannelAtTheProbeToleranceAndSaysSo()
+    {
+        var store = new ProbeCalibrationStore(Options.Create(new PatchproofOptions { DataFolder = folder }), Clock);
+        var bench = Guid.NewGuid();
+        store.Save(bench, ProbeCalibrationFile.Write(Calibration(1.03)));
+        var input = Input(SyntheticBoardCaptures.Csv("qh-d2-dunlin.json", new Dictionary<string, double>(), seed: 41, problemUnits: 6)) with { BenchId = bench, IgnoreBenchCalibration = true };
+
+        var outcome = await new BoardFitJobExecutor(Clock, store).ExecuteAsync(input, new Progress<FitJobProgress>(), TestContext.Current.CancellationToken);
+
+        Assert.Null(outcome.Error);
+        var document = FitResultJson.TryRead(outcome.Result!.Value);
+        Assert.NotNull(document);
+        Assert.DoesNotContain(document.Notes, n => n.StartsWith("Probe gains from the bench's newest probe calibration", StringComparison.Ordinal));
+        Assert.Contains(document.Notes, n => n.Contains("was not used, as asked", StringComparison.Ordinal));
+        Assert.NotEmpty(document.Channels!);
+        Assert.All(document.Channels!, c =>
+        {
+            Assert.False(c.IsCalibrated);
+            Assert.Equal(1, c.Gain);
+            Assert.StartsWith("probe tolerance", c.GainSource, StringComparison.Ordinal);
+        });
     }
 
     [Fact]

@@ -14,6 +14,7 @@ internal sealed class ScriptedFitExecutor : IFitJobExecutor
 {
     private readonly ConcurrentDictionary<Guid, int> runs = new();
     private readonly ConcurrentDictionary<Guid, TaskCompletionSource> started = new();
+    private readonly ConcurrentDictionary<Guid, FitJobInput> inputs = new();
 
     /// <summary>What each run does.</summary>
     public FitScript Script { get; set; } = FitScript.Succeed;
@@ -23,6 +24,9 @@ internal sealed class ScriptedFitExecutor : IFitJobExecutor
 
     public int RunsOf(Guid fitId) => runs.GetValueOrDefault(fitId);
 
+    /// <summary>What the engine was handed for the fit's latest run, or null when it has not run.</summary>
+    public FitJobInput? InputOf(Guid fitId) => inputs.GetValueOrDefault(fitId);
+
     public IReadOnlyDictionary<Guid, int> Runs => runs;
 
     public Task StartedAsync(Guid fitId) => started.GetOrAdd(fitId, _ => new(TaskCreationOptions.RunContinuationsAsynchronously)).Task;
@@ -30,6 +34,7 @@ internal sealed class ScriptedFitExecutor : IFitJobExecutor
     public async Task<FitJobOutcome> ExecuteAsync(FitJobInput input, IProgress<FitJobProgress> progress, CancellationToken cancellationToken)
     {
         runs.AddOrUpdate(input.FitId, 1, (_, n) => n + 1);
+        inputs[input.FitId] = input;
         started.GetOrAdd(input.FitId, _ => new(TaskCreationOptions.RunContinuationsAsynchronously)).TrySetResult();
         var result = JsonSerializer.SerializeToElement(new { fitId = input.FitId, attempt = input.Attempt, captures = input.Captures.Count, designVersion = input.DesignVersion });
         switch (Script)
