@@ -24,6 +24,23 @@ public sealed class ReportDocumentReaderTests
         """;
 
     [Fact]
+    public void Read_ChannelGains_KeepsEachGainWithItsSourceAndAnOlderDocumentHasNone()
+    {
+        using var json = JsonDocument.Parse("""
+            { "summary": "ok", "channels": [ { "channel": "CH2", "variable": "y", "sign": -1, "gain": 1.0183, "gainSdPercent": "NaN",
+              "gainSource": "calibration against CH1 (2026-11-30), ± 0.20 %", "isCalibrated": true, "offsetVolts": 0.01, "residualRmsVolts": 0.02 } ] }
+            """);
+        using var older = JsonDocument.Parse(Document);
+
+        var channel = Assert.Single(ReportDocumentReader.Read(json.RootElement).Value.Channels);
+
+        Assert.Equal(("CH2", "y", -1, 1.0183, true), (channel.Channel, channel.Variable, channel.Sign, channel.Gain, channel.IsCalibrated));
+        Assert.True(double.IsNaN(channel.GainSdPercent));
+        Assert.StartsWith("calibration against CH1", channel.GainSource, StringComparison.Ordinal);
+        Assert.Empty(ReportDocumentReader.Read(older.RootElement).Value.Channels);
+    }
+
+    [Fact]
     public void Read_FullDocument_ReadsEverySection()
     {
         using var json = JsonDocument.Parse(Document);

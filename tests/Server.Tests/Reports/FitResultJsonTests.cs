@@ -42,6 +42,9 @@ public sealed class FitResultJsonTests
         Assert.Equal(document.Invariants.Select(i => i.Name), read.Invariants.Select(i => i.Name));
         Assert.Equal(report.StructureCheck.Passed, read.StructureCheck?.Passed);
         Assert.Contains(report.MappingCheck.Message, read.Notes);
+        Assert.Equal(report.Channels.Select(c => (c.Channel, c.Variable, c.Sign, Math.Abs(c.Gain), c.GainSource, c.IsCalibrated)),
+            read.Channels.Select(c => (c.Channel, c.Variable, c.Sign, c.Gain, c.GainSource, c.IsCalibrated)));
+        Assert.All(read.Channels, c => Assert.StartsWith("probe tolerance", c.GainSource, StringComparison.Ordinal));
     }
 
     [Fact]
