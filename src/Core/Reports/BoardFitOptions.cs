@@ -45,7 +45,7 @@ public sealed record BoardFitOptions
     /// <summary>True (the default) to add the comparison of invariants and overlays to the report; false for the diagnosis alone.</summary>
     public bool CompareInvariants { get; init; } = true;
 
-    /// <summary>Settings of that comparison.</summary>
+    /// <summary>Settings of that comparison; its progress and cancellation are the fit's own (<see cref="Progress"/>, <see cref="Cancellation"/>).</summary>
     public FitComparisonOptions Comparison { get; init; } = new();
 }
 
