@@ -8,11 +8,11 @@ namespace Patchproof.Core.Estimation;
 /// <para>At each linearization J = Q R (thin Householder QR) is computed once. A damped step then solves the small
 /// least-squares problem [R; diag(sqrt(damping))] delta = [-Q'r; 0] by a second QR, which equals
 /// (J'J + diag(damping)) delta = -J'r without forming J'J (the approach of MINPACK's lmpar, with QR in place of its
-/// Givens sweep).</para>
+/// Givens sweep). The geodesic acceleration of a step reuses the same factors (see <see cref="IGeodesicAccelerationProblem"/>).</para>
 /// <para>Finite differences: forward steps h_j = sqrt(eps) |p_j|, central steps h_j = eps^(1/3) |p_j| (|p_j| replaced by 1 when p_j = 0), so
 /// the step follows the unknown's size; see <see cref="FiniteDifferenceScheme"/>.</para>
 /// </remarks>
-public sealed class DenseLeastSquaresProblem : ILevenbergMarquardtProblem
+public sealed class DenseLeastSquaresProblem : IGeodesicAccelerationProblem
 {
     private readonly NonlinearLeastSquaresProblem problem;
     private readonly FiniteDifferenceScheme scheme;
@@ -22,6 +22,7 @@ public sealed class DenseLeastSquaresProblem : ILevenbergMarquardtProblem
     private readonly double[] jacobian;
     private readonly double[] point;
     private Matrix<double>? upper;
+    private Matrix<double>? orthogonal;
     private Vector<double>? projectedResidual;
 
     /// <summary>Wraps <paramref name="problem"/>.</summary>
@@ -97,14 +98,56 @@ public sealed class DenseLeastSquaresProblem : ILevenbergMarquardtProblem
         var matrix = JacobianMatrix();
         var qr = matrix.QR(QRMethod.Thin);
         upper = qr.R;
+        orthogonal = qr.Q;
         projectedResidual = qr.Q.TransposeThisAndMultiply(Vector<double>.Build.Dense(residuals));
         return true;
     }
 
     /// <inheritdoc/>
-    public bool TrySolveDampedStep(ReadOnlySpan<double> damping, Span<double> step)
+    public bool TrySolveDampedStep(ReadOnlySpan<double> damping, Span<double> step) =>
+        projectedResidual is not null && TrySolveDamped(damping, projectedResidual, step);
+
+    /// <inheritdoc/>
+    public bool TryAcceleration(ReadOnlySpan<double> parameters, ReadOnlySpan<double> velocity, ReadOnlySpan<double> damping, Span<double> acceleration)
     {
-        if (upper is null || projectedResidual is null)
+        if (upper is null || orthogonal is null)
+        {
+            return false;
+        }
+
+        const double h = 0.1;
+        var rows = problem.ObservationCount;
+        var columns = problem.ParameterCount;
+        for (var j = 0; j < columns; j++)
+        {
+            point[j] = parameters[j] + (h * velocity[j]);
+        }
+
+        problem.Residuals(point, shifted);
+        var second = new double[rows];
+        for (var i = 0; i < rows; i++)
+        {
+            var directional = 0.0;
+            for (var j = 0; j < columns; j++)
+            {
+                directional += jacobian[i * columns + j] * velocity[j];
+            }
+
+            second[i] = 2 / h * (((shifted[i] - residuals[i]) / h) - directional);
+            if (!double.IsFinite(second[i]))
+            {
+                return false;
+            }
+        }
+
+        var projected = orthogonal.TransposeThisAndMultiply(Vector<double>.Build.Dense(second));
+        return TrySolveDamped(damping, projected, acceleration);
+    }
+
+    /// <summary>Solves (J'J + diag(damping)) x = -J' b from the kept R and Q'b.</summary>
+    private bool TrySolveDamped(ReadOnlySpan<double> damping, Vector<double> projected, Span<double> solutionOut)
+    {
+        if (upper is null)
         {
             return false;
         }
@@ -116,7 +159,7 @@ public sealed class DenseLeastSquaresProblem : ILevenbergMarquardtProblem
         for (var j = 0; j < columns; j++)
         {
             stacked[columns + j, j] = Math.Sqrt(damping[j]);
-            right[j] = -projectedResidual[j];
+            right[j] = -projected[j];
         }
 
         var factor = stacked.QR(QRMethod.Thin);
@@ -137,7 +180,7 @@ public sealed class DenseLeastSquaresProblem : ILevenbergMarquardtProblem
                 return false;
             }
 
-            step[j] = solution[j];
+            solutionOut[j] = solution[j];
         }
 
         return true;

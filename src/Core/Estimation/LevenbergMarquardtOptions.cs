@@ -38,8 +38,8 @@ public enum FiniteDifferenceScheme
 /// Cauchy-Schwarz every linear combination a'p moved by at most sqrt(tau) of its standard error sigma sqrt(a' H^-1 a);
 /// further iterations would only polish digits the data do not resolve;
 /// or the iteration cap.</para>
-/// <para>Defaults: tolerances near what double precision resolves (1e-10 step, 1e-14 cost, 1e-12 gradient), 1000
-/// iterations, initial lambda 1e-3, <see cref="DampingScaling.MarquardtRunningMaximum"/>, central differences.</para>
+/// <para>Defaults: tolerances near what double precision resolves (1e-10 step, 1e-14 cost, 1e-12 gradient), 5000
+/// iterations, geodesic acceleration where the problem offers it, initial lambda 1e-3, <see cref="DampingScaling.MarquardtRunningMaximum"/>, central differences.</para>
 /// </remarks>
 public sealed record LevenbergMarquardtOptions
 {
@@ -52,8 +52,8 @@ public sealed record LevenbergMarquardtOptions
     /// <summary>Gradient (cosine) tolerance, non-negative. Default 1e-12.</summary>
     public double GradientTolerance { get; init; } = 1e-12;
 
-    /// <summary>The iteration cap (an iteration is one trial step, accepted or not), at least 1. Default 1000.</summary>
-    public int MaxIterations { get; init; } = 1000;
+    /// <summary>The iteration cap (an iteration is one trial step, accepted or not), at least 1. Default 5000.</summary>
+    public int MaxIterations { get; init; } = 5000;
 
     /// <summary>The starting damping factor lambda, positive. Default 1e-3.</summary>
     public double InitialDamping { get; init; } = 1e-3;
@@ -63,6 +63,12 @@ public sealed record LevenbergMarquardtOptions
 
     /// <summary>The finite-difference scheme used when no Jacobian is supplied. Default <see cref="FiniteDifferenceScheme.Central"/>.</summary>
     public FiniteDifferenceScheme FiniteDifferences { get; init; } = FiniteDifferenceScheme.Central;
+
+    /// <summary>When the problem supports it (<see cref="IGeodesicAccelerationProblem"/>), each trial step adds half the geodesic
+    /// acceleration, and a step whose acceleration is large against its velocity (2 |a| / |v| &gt; 0.75 in the damping's
+    /// scale) is refused as if it had failed. Default true: it carries the loop along narrow curved valleys (NIST StRD MGH10
+    /// from its first start) and off saturating plateaus (BoxBOD from its first start) that plain damping stalls in.</summary>
+    public bool GeodesicAcceleration { get; init; } = true;
 
     /// <summary>The statistical stop tau (see the remarks), positive, or null for none. Default null.</summary>
     public double? VarianceScaledCostTolerance { get; init; }

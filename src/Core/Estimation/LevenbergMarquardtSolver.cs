@@ -18,6 +18,7 @@ public static class LevenbergMarquardtSolver
 {
     private const double AcceptanceThreshold = 1e-4;
     private const double MaximumDamping = 1e32;
+    private const double MaximumAccelerationRatio = 0.75;
 
     /// <summary>Minimises S(p) from <paramref name="initialParameters"/>.</summary>
     /// <param name="problem">The problem; it is linearized at every accepted point.</param>
@@ -45,6 +46,8 @@ public static class LevenbergMarquardtSolver
         var curvature = new double[count];
         var scale = new double[count];
         var damping = new double[count];
+        var acceleration = new double[count];
+        var accelerating = options.GeodesicAcceleration ? problem as IGeodesicAccelerationProblem : null;
 
         var costEvaluations = 1;
         if (!problem.TryEvaluateCost(parameters, out var cost))
@@ -106,6 +109,41 @@ public static class LevenbergMarquardtSolver
 
             stepNorm = Math.Sqrt(stepNorm);
             pointNorm = Math.Sqrt(pointNorm);
+            if (accelerating is not null)
+            {
+                if (!accelerating.TryAcceleration(parameters, step, damping, acceleration))
+                {
+                    if (!Grow())
+                    {
+                        return Finish(LevenbergMarquardtExitReason.Singular);
+                    }
+
+                    continue;
+                }
+
+                double accelerationNorm = 0;
+                for (var j = 0; j < count; j++)
+                {
+                    accelerationNorm += scale[j] * acceleration[j] * acceleration[j];
+                }
+
+                if (stepNorm > 0 && 2 * Math.Sqrt(accelerationNorm) / stepNorm > MaximumAccelerationRatio)
+                {
+                    if (!Grow())
+                    {
+                        var small = stepNorm <= options.RelativeStepTolerance * (pointNorm + options.RelativeStepTolerance);
+                        return Finish(small ? LevenbergMarquardtExitReason.ConvergedOnStep : LevenbergMarquardtExitReason.Singular);
+                    }
+
+                    continue;
+                }
+
+                for (var j = 0; j < count; j++)
+                {
+                    trial[j] += 0.5 * acceleration[j];
+                }
+            }
+
             costEvaluations++;
             var trialFinite = problem.TryEvaluateCost(trial, out var trialCost);
             var actual = trialFinite ? cost - trialCost : double.NegativeInfinity;

@@ -45,8 +45,6 @@ public sealed class LevenbergMarquardtFitterTests
     /// <summary>Known failures of this Levenberg-Marquardt core, kept visible (the check is not loosened for them).</summary>
     private static readonly Dictionary<(string Name, int Start), string> KnownFailures = new()
     {
-        [("BoxBOD", 1)] = "Not met: from NIST start 1 the loop stops on the plateau b2 -> large (RSS 9772 against the certified 1168); start 2 passes.",
-        [("MGH10", 1)] = "Not met: from NIST start 1 the loop crawls along MGH10's curved valley and hits the iteration cap; start 2 passes.",
         [("Lanczos1", 1)] = "Not met for the standard errors: the certified residual SD is 8.9e-14 on responses near 1, below what double-precision evaluation of the model resolves (RSS rel 1.4e-3, SE LRE 3.2; parameters reach LRE 10.6).",
         [("Lanczos1", 2)] = "Not met for the standard errors: the certified residual SD is 8.9e-14 on responses near 1, below what double-precision evaluation of the model resolves (RSS rel 1.4e-3, SE LRE 3.2; parameters reach LRE 10.5).",
     };
