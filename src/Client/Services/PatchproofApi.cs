@@ -4,6 +4,7 @@ using System.Net.Http.Json;
 using System.Text.Json;
 using Patchproof.Client.Models;
 using Patchproof.Client.Services.Wire;
+using Patchproof.Contracts.Benches;
 using Patchproof.Contracts.Fits;
 using Patchproof.Contracts.Health;
 
@@ -33,11 +34,11 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
 
     /// <inheritdoc />
     public Task<ApiResult<IReadOnlyList<ProbeCalibrationView>>> ListProbeCalibrationsAsync(Guid benchId, CancellationToken cancellationToken = default) =>
-        GetListAsync<ProbeCalibrationWire, ProbeCalibrationView>($"api/benches/{benchId}/probe-calibrations", w => w.ToView(), cancellationToken);
+        GetListAsync<ProbeCalibrationSummary, ProbeCalibrationView>($"api/benches/{benchId}/probe-calibrations", w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
     public Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, string? note, CancellationToken cancellationToken = default) =>
-        SendAsync<ProbeCalibrationWire, ProbeCalibrationView>(
+        SendAsync<ProbeCalibrationSummary, ProbeCalibrationView>(
             () =>
             {
                 var body = new StreamContent(file.OpenRead());
@@ -125,7 +126,7 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
 
     /// <inheritdoc />
     public Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, bool ignoreBenchCalibration = false, CancellationToken cancellationToken = default) =>
-        SendAsync<FitResponse, FitJob>(() => PostJson("api/fits", new StartFitWire(boardId, designVersion, captureIds, ignoreBenchCalibration)), w => w.ToView(), cancellationToken);
+        SendAsync<FitResponse, FitJob>(() => PostJson("api/fits", new StartFitRequest(boardId, designVersion, captureIds, ignoreBenchCalibration)), w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
     public Task<ApiResult<FitJob>> GetFitAsync(Guid fitId, CancellationToken cancellationToken = default) =>

@@ -99,7 +99,19 @@ internal static class ReportHtmlWriter
             html.Append(CultureInfo.InvariantCulture, $"<tr><td>d{E(o.Variable)}/dt</td><td class=\"num\">{N(o.EquivalentInputMillivolts, "0.00")}</td><td class=\"num\">{N(o.StandardErrorMillivolts, "0.00")}</td></tr>\n");
         }
 
-        html.Append("</tbody></table>\n<h2>Time scale</h2>\n");
+        html.Append("</tbody></table>\n");
+        if (document.Channels is { Count: > 0 } channels)
+        {
+            html.Append("<h2>Channel gains assumed</h2>\n<table><thead><tr><th>Channel</th><th>Records</th><th class=\"num\">Gain</th><th class=\"num\">± prior sd</th><th>Where it came from</th></tr></thead><tbody>\n");
+            foreach (var g in channels)
+            {
+                html.Append(CultureInfo.InvariantCulture, $"<tr><td>{E(g.Channel)}</td><td>{(g.Sign < 0 ? "-" : string.Empty)}{E(g.Variable)}</td><td class=\"num\">{N(g.Gain, "0.0000")}</td><td class=\"num\">{N(g.GainSdPercent, "0.00")} %</td><td>{E(g.GainSource)}</td></tr>\n");
+            }
+
+            html.Append("</tbody></table>\n");
+        }
+
+        html.Append("<h2>Time scale</h2>\n");
         html.Append(document.TimeScale is { } t
             ? string.Create(CultureInfo.InvariantCulture, $"<p>Design {N(t.NominalSeconds * 1e3, "0.####")} ms per problem time unit; the fit's common factor gives {N(t.EstimateSeconds * 1e3, "0.####")} ms ± {N(t.StandardErrorSeconds * 1e3, "0.####")} ms.</p>\n")
             : "<p>None in this report.</p>\n");

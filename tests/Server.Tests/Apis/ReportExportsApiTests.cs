@@ -59,6 +59,8 @@ public sealed class ReportExportsApiTests
         Assert.DoesNotContain("<link", html, StringComparison.OrdinalIgnoreCase);
         Assert.Contains("<svg", html, StringComparison.Ordinal);
         Assert.Contains("capture (black, solid)", html, StringComparison.Ordinal);
+        Assert.Contains("<h2>Channel gains assumed</h2>", html, StringComparison.Ordinal);
+        Assert.Contains("<td>probe tolerance 2 %", html, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -1,4 +1,5 @@
 using Patchproof.Client.Models;
+using Patchproof.Contracts.Benches;
 using Patchproof.Contracts.Fits;
 
 namespace Patchproof.Client.Services.Wire;
@@ -24,7 +25,7 @@ internal static class WireMapping
         IgnoresBenchCalibration = w.IgnoreBenchCalibration,
     };
 
-    public static ProbeCalibrationView ToView(this ProbeCalibrationWire w)
+    public static ProbeCalibrationView ToView(this ProbeCalibrationSummary w)
     {
         // A summary from a server that lists only channel names still shows them, without gains.
         var details = w.ChannelDetails is { Count: > 0 } given

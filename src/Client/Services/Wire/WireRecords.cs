@@ -21,8 +21,6 @@ internal sealed record CaptureWire(
     Guid Id, Guid BoardId, string FileName, long SizeBytes, long RowCount, List<string> ChannelNames,
     double? SampleIntervalSeconds, double DurationSeconds, List<CaptureCheckWire> Checks, DateTimeOffset UploadedAt);
 
-internal sealed record StartFitWire(Guid BoardId, int DesignVersion, IReadOnlyList<Guid> CaptureIds, bool IgnoreBenchCalibration);
-
 internal sealed record FitReportWire(FitResponse Fit, BoardWire Board, DesignVersionSummaryWire Design, List<CaptureWire> Captures, JsonElement Result);
 
 internal sealed record MappingCheckRequestWire(int DesignVersion, IReadOnlyList<ChannelMappingWire> Mapping);
@@ -34,11 +32,3 @@ internal sealed record MappingCheckWire(bool AgreesWithGiven, List<ChannelMappin
 internal sealed record DesignCheckNoteWire(string Severity, string Subject, string Message);
 
 internal sealed record BuiltInModelWire(string Id, string Name, string Summary, List<string> Equations, bool CanGenerateDesign = true);
-
-internal sealed record ProbeCalibrationWire(
-    Guid BenchId, string ReferenceChannel, List<string>? Channels, DateTimeOffset CreatedAt, DateTimeOffset UploadedAt,
-    string? Note, int SampleCount, double DurationSeconds, List<string>? SourceFiles, List<ProbeChannelCalibrationWire>? ChannelDetails, List<string>? Findings);
-
-internal sealed record ProbeChannelCalibrationWire(
-    string Channel, bool IsReference, double Gain, double GainSd, double OffsetVolts, double OffsetSdVolts, double Correlation,
-    double ResidualRmsVolts, double ExpectedResidualRmsVolts, bool? FollowsReference);
