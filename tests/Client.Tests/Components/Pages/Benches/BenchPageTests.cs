@@ -114,4 +114,16 @@ public sealed class BenchPageTests : BunitContext
 
         cut.WaitForAssertion(() => Assert.Contains("QH-L4 is already on this bench.", cut.Find(".new-board .problem-notice").TextContent, StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void Render_BenchLoaded_ShowsItsProbeCalibration()
+    {
+        api.Bench = FakePatchproofApi.Ok(DemoData.Bench);
+        api.Boards = FakePatchproofApi.Ok<IReadOnlyList<BoardSummary>>([]);
+        api.Calibrations = FakePatchproofApi.Ok<IReadOnlyList<ProbeCalibrationView>>([DemoData.ProbeCalibration()]);
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Contains("1.01830", cut.Find(".probe-calibration table.gains").TextContent, StringComparison.Ordinal));
+    }
 }
