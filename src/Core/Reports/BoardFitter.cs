@@ -138,6 +138,11 @@ public static class BoardFitter
         var shooting = new MultipleShootingOptions { SegmentSeconds = segmentSeconds, ParameterPriors = priors, ChannelOffsetPriorSdVolts = options.ChannelOffsetPriorSdVolts };
         shooting = shooting with { Solver = shooting.Solver with { Progress = progress.Iterations, Cancellation = options.Cancellation } };
         var start = hidden.Count > 0 ? null : EquationErrorStartOf(design, field, shootingChannels, timeBase.IntervalSeconds);
+        if (start is not null)
+        {
+            shooting = shooting with { Solver = shooting.Solver with { InitialDamping = MultipleShootingOptions.NearStartDamping } };
+        }
+
         var fit = start is null
             ? MultipleShootingEstimator.Fit(field, nominal, shootingChannels, 0, timeBase.IntervalSeconds, shooting, guess)
             : MultipleShootingEstimator.Fit(field, start.Parameters, shootingChannels, 0, timeBase.IntervalSeconds, shooting, guess,

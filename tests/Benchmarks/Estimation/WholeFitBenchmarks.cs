@@ -67,7 +67,11 @@ public class WholeFitBenchmarks
         return new WholeFitResult(ranking[0], fit);
     }
 
-    private static MultipleShootingOptions Options() => new() { SegmentSeconds = 0.5, ChannelOffsetPriorSdVolts = 0.1 };
+    private static MultipleShootingOptions Options()
+    {
+        var options = new MultipleShootingOptions { SegmentSeconds = 0.5, ChannelOffsetPriorSdVolts = 0.1 };
+        return options with { Solver = options.Solver with { InitialDamping = MultipleShootingOptions.NearStartDamping } };
+    }
 
     /// <summary>Prints wall and CPU time per stage for <paramref name="runs"/> runs of each size, with s, r, b, their
     /// relative errors and standard errors. The first run of a size includes the JIT compilation; later ones approach the steady state.</summary>
