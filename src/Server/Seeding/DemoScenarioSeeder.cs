@@ -13,7 +13,8 @@ namespace Patchproof.Server.Seeding;
 /// <c>Patchproof:Demo:CapturesFolder</c> (default: the first <c>sample-captures</c> folder). A file
 /// belongs to a board when its name starts with the board's code (any case) or it lies in a folder
 /// named after the code. A design is stored as version 1 when the board has none yet; a capture is
-/// stored unless the board already has one with the same bytes.
+/// stored unless the board already has one with the same bytes. Files ending in <c>-probe-calibration.csv</c> are
+/// probe calibration captures and are left out.
 /// </remarks>
 internal sealed partial class DemoScenarioSeeder(
     PatchproofDbContext db,
@@ -23,6 +24,12 @@ internal sealed partial class DemoScenarioSeeder(
     ILogger<DemoScenarioSeeder> logger,
     CaptureIngest ingest)
 {
+    /// <summary>How a demo probe calibration capture's file name ends; such files are not seeded as board captures.</summary>
+    public const string ProbeCalibrationSuffix = "-probe-calibration.csv";
+
+    /// <summary>Seeds the bench, its boards and the files found, skipping what is there already.</summary>
+    /// <param name="cancellationToken">Stops the seeding.</param>
+    /// <returns>A task that completes when the seeding is done.</returns>
     public async Task SeedAsync(CancellationToken cancellationToken)
     {
         var bench = await EnsureBenchAsync(cancellationToken);
@@ -32,7 +39,12 @@ internal sealed partial class DemoScenarioSeeder(
         {
             var board = await EnsureBoardAsync(bench.Id, demo, cancellationToken);
             await SeedDesignAsync(board, FilesOf(designs, demo.Code, ".json"), cancellationToken);
-            await SeedCapturesAsync(board, FilesOf(captures, demo.Code, ".csv"), cancellationToken);
+            // A probe calibration capture (every probe on one node) is not a recording of the board: it stays a file to
+            // upload on the bench page, since a bench calibration would apply to every board of the demo bench.
+            var boardCaptures = FilesOf(captures, demo.Code, ".csv")
+                .Where(file => !Path.GetFileName(file).EndsWith(ProbeCalibrationSuffix, StringComparison.OrdinalIgnoreCase))
+                .ToList();
+            await SeedCapturesAsync(board, boardCaptures, cancellationToken);
         }
     }
 
