@@ -210,13 +210,13 @@ internal static class DesignSimulateVerb
                 return false;
             }
 
-            if (!value.EndsWith('%') || !double.TryParse(value.AsSpan(0, value.Length - 1), NumberStyles.Float, CultureInfo.InvariantCulture, out var percent) || Math.Abs(percent) >= 50)
+            if (!ValueNotation.TryParse(value, Quantity.Fraction, out var fraction, out var message) || !(Math.Abs(fraction) < 0.5))
             {
-                error = $"'{value}' for {name}: expected a percentage between -50% and +50%, for example +1.5%.";
+                error = $"'{value}' for {name}: {message ?? "expected a deviation between -50 % and +50 %, for example +1.5%"}.";
                 return false;
             }
 
-            gains[name] = 1 + (percent / 100);
+            gains[name] = 1 + fraction;
         }
 
         return true;

@@ -19,6 +19,7 @@ public sealed class DenseLeastSquaresProblem : IGeodesicAccelerationProblem
     private readonly double[] residuals;
     private readonly double[] shifted;
     private readonly double[] shiftedBack;
+    private readonly double[] secondDerivative;
     private readonly double[] jacobian;
     private readonly double[] point;
     private Matrix<double>? upper;
@@ -38,6 +39,7 @@ public sealed class DenseLeastSquaresProblem : IGeodesicAccelerationProblem
         residuals = new double[problem.ObservationCount];
         shifted = new double[problem.ObservationCount];
         shiftedBack = new double[problem.ObservationCount];
+        secondDerivative = new double[problem.ObservationCount];
         jacobian = new double[problem.ObservationCount * problem.ParameterCount];
         point = new double[problem.ParameterCount];
     }
@@ -124,7 +126,6 @@ public sealed class DenseLeastSquaresProblem : IGeodesicAccelerationProblem
         }
 
         problem.Residuals(point, shifted);
-        var second = new double[rows];
         for (var i = 0; i < rows; i++)
         {
             var directional = 0.0;
@@ -133,14 +134,14 @@ public sealed class DenseLeastSquaresProblem : IGeodesicAccelerationProblem
                 directional += jacobian[i * columns + j] * velocity[j];
             }
 
-            second[i] = 2 / h * (((shifted[i] - residuals[i]) / h) - directional);
-            if (!double.IsFinite(second[i]))
+            secondDerivative[i] = 2 / h * (((shifted[i] - residuals[i]) / h) - directional);
+            if (!double.IsFinite(secondDerivative[i]))
             {
                 return false;
             }
         }
 
-        var projected = orthogonal.TransposeThisAndMultiply(Vector<double>.Build.Dense(second));
+        var projected = orthogonal.TransposeThisAndMultiply(Vector<double>.Build.Dense(secondDerivative));
         return TrySolveDamped(damping, projected, acceleration);
     }
 

@@ -96,7 +96,7 @@ internal static class DesignSheetsApi
             return TypedResults.Problem(statusCode: StatusCodes.Status415UnsupportedMediaType, title: "Unsupported media type", detail: "Send the sheet or the design file as application/json.");
         }
 
-        var body = await DesignsApi.ReadBodyAsync(request, cancellationToken);
+        var body = await BoundedRequestBody.ReadTextAsync(request, DesignsApi.MaxDocumentBytes, cancellationToken);
         if (body is null)
         {
             return TypedResults.Problem(statusCode: StatusCodes.Status413PayloadTooLarge, title: "Design too large", detail: $"A design document may have at most {DesignsApi.MaxDocumentBytes} bytes.");

@@ -82,7 +82,7 @@ internal static class DesignsApi
             return ApiProblems.NotFound("board", boardId);
         }
 
-        var document = await ReadBodyAsync(request, cancellationToken);
+        var document = await BoundedRequestBody.ReadTextAsync(request, MaxDocumentBytes, cancellationToken);
         if (document is null)
         {
             return TypedResults.Problem(statusCode: StatusCodes.Status413PayloadTooLarge, title: "Design too large",
@@ -130,29 +130,6 @@ internal static class DesignsApi
                 db.Entry(design).State = EntityState.Detached;
             }
         }
-    }
-
-    internal static async Task<string?> ReadBodyAsync(HttpRequest request, CancellationToken cancellationToken)
-    {
-        if (request.ContentLength > MaxDocumentBytes)
-        {
-            return null;
-        }
-
-        using var buffer = new MemoryStream();
-        var chunk = new byte[81920];
-        int read;
-        while ((read = await request.Body.ReadAsync(chunk, cancellationToken)) > 0)
-        {
-            if (buffer.Length + read > MaxDocumentBytes)
-            {
-                return null;
-            }
-
-            buffer.Write(chunk, 0, read);
-        }
-
-        return Encoding.UTF8.GetString(buffer.GetBuffer(), 0, (int)buffer.Length).TrimStart('\uFEFF');
     }
 
     private static DesignVersionResponse ToResponse(DesignVersionRecord design)

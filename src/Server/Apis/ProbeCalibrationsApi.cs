@@ -51,7 +51,7 @@ internal static class ProbeCalibrationsApi
             return ApiProblems.NotFound("bench", benchId);
         }
 
-        var document = await ReadBodyAsync(request, cancellationToken);
+        var document = await BoundedRequestBody.ReadTextAsync(request, MaxDocumentBytes, cancellationToken);
         if (document is null)
         {
             return TypedResults.Problem(statusCode: StatusCodes.Status413PayloadTooLarge, title: "Calibration too large",
@@ -240,29 +240,6 @@ internal static class ProbeCalibrationsApi
             }).ToList(),
             Findings = findings,
         };
-    }
-
-    private static async Task<string?> ReadBodyAsync(HttpRequest request, CancellationToken cancellationToken)
-    {
-        if (request.ContentLength > MaxDocumentBytes)
-        {
-            return null;
-        }
-
-        using var buffer = new MemoryStream();
-        var chunk = new byte[16384];
-        int read;
-        while ((read = await request.Body.ReadAsync(chunk, cancellationToken)) > 0)
-        {
-            if (buffer.Length + read > MaxDocumentBytes)
-            {
-                return null;
-            }
-
-            buffer.Write(chunk, 0, read);
-        }
-
-        return Encoding.UTF8.GetString(buffer.GetBuffer(), 0, (int)buffer.Length).TrimStart('\uFEFF');
     }
 }
 

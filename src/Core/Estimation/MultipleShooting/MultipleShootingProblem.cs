@@ -35,6 +35,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
     private double[] linearizedAt = [];
     private double[] linearizedGradient = [];
     private double[] linearizedCurvature = [];
+    private readonly double[][] linearizedResiduals;
     private Matrix<double>[] diagonalBlocks = [];
     private Matrix<double>[] upperBlocks = [];
     private Matrix<double>[] couplingBlocks = [];
@@ -75,6 +76,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
         excludedWeights = channels.Select(channel => channel.Excluded is { } excluded ? excluded.Select(x => x ? 0.0 : 1.0).ToArray() : Enumerable.Repeat(1.0, sampleCount).ToArray()).ToArray();
         huberWeights = excludedWeights.Select(weights => (double[])weights.Clone()).ToArray();
         samples = channels.Select(channel => channel.Samples.ToArray()).ToArray();
+        linearizedResiduals = samples.Select(values => new double[values.Length]).ToArray();
     }
 
     public int SegmentCount => boundaries.Length - 1;
@@ -255,6 +257,12 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
     /// <summary>Observation residuals (unweighted by Huber, scaled by σ) per channel at <paramref name="unknowns"/>.</summary>
     public double[][] ObservationResiduals(double[] unknowns)
     {
+        if (unknowns.AsSpan().SequenceEqual(linearizedAt))
+        {
+            // The linearization's pass already integrated every segment here and kept its misfits.
+            return linearizedResiduals.Select(values => (double[])values.Clone()).ToArray();
+        }
+
         var residuals = channels.Select(channel => new double[channel.Samples.Count]).ToArray();
         ForEachSegment(k =>
         {
@@ -417,6 +425,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
             var sigma = channels[c].NoiseSdVolts;
             var observed = samples[c];
             var huber = huberWeights[c];
+            var kept = linearizedResiduals[c];
             var excluded = excludedWeights[c];
             double weightTotal = 0, misfitTotal = 0;
             for (var i = first; i <= lastOwned; i++)
@@ -424,7 +433,8 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
                 var local = i - first;
                 var state = solution.StateAt(local);
                 var misfit = observed[i] - gain * state[m] - offset;
-                var size = Math.Abs(misfit / sigma);
+                kept[i] = misfit / sigma;
+                var size = Math.Abs(kept[i]);
                 huber[i] = excluded[i] * (options.HuberThreshold is { } threshold && size > threshold && double.IsFinite(size) ? threshold / size : 1);
                 var w = huber[i] / (sigma * sigma);
                 if (w == 0)
