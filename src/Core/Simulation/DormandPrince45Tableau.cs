@@ -21,21 +21,32 @@ public static class DormandPrince45Tableau
     /// <summary>The shared immutable tableau.</summary>
     public static ButcherTableau Instance { get; } = Create();
 
+    // The coefficients as constants, so that the stepper's stage loops fold them into the code (fields
+    // would be reloaded from memory in every loop iteration, since stores through refs may alias them).
+    internal const double A21 = 1.0 / 5.0;
+    internal const double A31 = 3.0 / 40.0, A32 = 9.0 / 40.0;
+    internal const double A41 = 44.0 / 45.0, A42 = -56.0 / 15.0, A43 = 32.0 / 9.0;
+    internal const double A51 = 19372.0 / 6561.0, A52 = -25360.0 / 2187.0, A53 = 64448.0 / 6561.0, A54 = -212.0 / 729.0;
+    internal const double A61 = 9017.0 / 3168.0, A62 = -355.0 / 33.0, A63 = 46732.0 / 5247.0, A64 = 49.0 / 176.0, A65 = -5103.0 / 18656.0;
+    internal const double B1 = 35.0 / 384.0, B3 = 500.0 / 1113.0, B4 = 125.0 / 192.0, B5 = -2187.0 / 6784.0, B6 = 11.0 / 84.0;
+    internal const double C2 = 1.0 / 5.0, C3 = 3.0 / 10.0, C4 = 4.0 / 5.0, C5 = 8.0 / 9.0;
+    internal const double E1 = 71.0 / 57600.0, E3 = -71.0 / 16695.0, E4 = 71.0 / 1920.0, E5 = -17253.0 / 339200.0, E6 = 22.0 / 525.0, E7 = -1.0 / 40.0;
+
     private static ButcherTableau Create()
     {
         ImmutableArray<ImmutableArray<double>> a =
         [
             [],
-            [1.0 / 5.0],
-            [3.0 / 40.0, 9.0 / 40.0],
-            [44.0 / 45.0, -56.0 / 15.0, 32.0 / 9.0],
-            [19372.0 / 6561.0, -25360.0 / 2187.0, 64448.0 / 6561.0, -212.0 / 729.0],
-            [9017.0 / 3168.0, -355.0 / 33.0, 46732.0 / 5247.0, 49.0 / 176.0, -5103.0 / 18656.0],
-            [35.0 / 384.0, 0.0, 500.0 / 1113.0, 125.0 / 192.0, -2187.0 / 6784.0, 11.0 / 84.0],
+            [A21],
+            [A31, A32],
+            [A41, A42, A43],
+            [A51, A52, A53, A54],
+            [A61, A62, A63, A64, A65],
+            [B1, 0.0, B3, B4, B5, B6],
         ];
-        ImmutableArray<double> b = [35.0 / 384.0, 0.0, 500.0 / 1113.0, 125.0 / 192.0, -2187.0 / 6784.0, 11.0 / 84.0, 0.0];
-        ImmutableArray<double> c = [0.0, 1.0 / 5.0, 3.0 / 10.0, 4.0 / 5.0, 8.0 / 9.0, 1.0, 1.0];
-        ImmutableArray<double> e = [71.0 / 57600.0, 0.0, -71.0 / 16695.0, 71.0 / 1920.0, -17253.0 / 339200.0, 22.0 / 525.0, -1.0 / 40.0];
+        ImmutableArray<double> b = [B1, 0.0, B3, B4, B5, B6, 0.0];
+        ImmutableArray<double> c = [0.0, C2, C3, C4, C5, 1.0, 1.0];
+        ImmutableArray<double> e = [E1, 0.0, E3, E4, E5, E6, E7];
         ImmutableArray<ImmutableArray<double>> p =
         [
             [1.0, -8048581381.0 / 2820520608.0, 8663915743.0 / 2820520608.0, -12715105075.0 / 11282082432.0],
