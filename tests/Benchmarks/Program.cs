@@ -16,5 +16,10 @@ if (args.Length > 0 && args[0] == "fit-timings")
     return Patchproof.Benchmarks.Estimation.WholeFitBenchmarks.PrintTimings(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 3);
 }
 
+if (args.Length > 0 && args[0] == "fit-accuracy")
+{
+    return Patchproof.Benchmarks.Estimation.FitAccuracyComparison.Print(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 10);
+}
+
 BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
 return 0;

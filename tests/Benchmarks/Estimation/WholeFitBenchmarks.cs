@@ -104,7 +104,7 @@ public class WholeFitBenchmarks
         File.Exists("/proc/loadavg") ? File.ReadAllText("/proc/loadavg").Split(' ')[0] : "?";
 
     /// <summary>Noise sd from the median absolute second difference, floored by the quantization step / √12.</summary>
-    private static double NoiseSd(double[] samples)
+    internal static double NoiseSd(double[] samples)
     {
         var differences = new double[samples.Length - 2];
         for (var i = 1; i + 1 < samples.Length; i++)

@@ -1,4 +1,5 @@
 using MathNet.Numerics.LinearAlgebra;
+using Patchproof.Core.Models;
 
 namespace Patchproof.Core.Estimation.MultipleShooting;
 
@@ -22,7 +23,9 @@ namespace Patchproof.Core.Estimation.MultipleShooting;
 public static class MultipleShootingEstimator
 {
     /// <summary>Fits <paramref name="field"/> to the channels.</summary>
-    /// <param name="field">The board's vector field in volts and seconds.</param>
+    /// <param name="field">The vector field whose parameters are fitted: a board's <see cref="PolynomialVectorField"/> in volts and
+    /// seconds (one free coefficient a term), or any other system with its parameter Jacobian, for example a model whose
+    /// parameters are tied across terms (Lorenz's sigma in both terms of x').</param>
     /// <param name="initialParameters">Starting coefficients and offsets (the design's nominal values, or an equation-error estimate).</param>
     /// <param name="channels">The channels, all on one uniform time base; each state at most once.</param>
     /// <param name="startSeconds">Time of the first sample.</param>
@@ -33,7 +36,7 @@ public static class MultipleShootingEstimator
     /// <returns>The fitted values, their covariance, and how the fit went.</returns>
     /// <exception cref="ArgumentOutOfRangeException">Shapes disagree, or a setting is out of range.</exception>
     public static MultipleShootingResult Fit(
-        PolynomialVectorField field,
+        IOdeSystem field,
         IReadOnlyList<double> initialParameters,
         IReadOnlyList<ShootingChannel> channels,
         double startSeconds,

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using MathNet.Numerics.LinearAlgebra;
+using Patchproof.Core.Models;
 using Patchproof.Core.Simulation;
 
 namespace Patchproof.Core.Estimation.MultipleShooting;
@@ -15,7 +16,7 @@ namespace Patchproof.Core.Estimation.MultipleShooting;
 /// </remarks>
 internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
 {
-    private readonly PolynomialVectorField field;
+    private readonly IOdeSystem field;
     private readonly IReadOnlyList<ShootingChannel> channels;
     private readonly MultipleShootingOptions options;
     private readonly double startSeconds;
@@ -43,7 +44,7 @@ internal sealed class MultipleShootingProblem : ILevenbergMarquardtProblem
     private Vector<double>[] stateGradients = [];
     private Vector<double> globalGradient = Vector<double>.Build.Dense(1);
 
-    public MultipleShootingProblem(PolynomialVectorField field, IReadOnlyList<ShootingChannel> channels, double startSeconds, double intervalSeconds, MultipleShootingOptions options)
+    public MultipleShootingProblem(IOdeSystem field, IReadOnlyList<ShootingChannel> channels, double startSeconds, double intervalSeconds, MultipleShootingOptions options)
     {
         this.field = field;
         this.channels = channels;
