@@ -2,10 +2,12 @@ using System.CommandLine;
 using System.Globalization;
 using Patchproof.Core.Captures;
 using Patchproof.Core.Captures.Calibration;
+using Patchproof.Core.Circuits;
 
 namespace Patchproof.Cli.Verbs;
 
-/// <summary><c>patchproof calibrate CAPTURE... [--reference CH1] [--note TEXT] [--json OUT]</c>: each channel's gain and offset against a reference, from a capture with every probe on one node.</summary>
+/// <summary><c>patchproof calibrate CAPTURE... [--reference CH1] [--note TEXT] [--known-amplitude 10V --amplitude-accuracy 0.1%] [--json OUT]</c>: each
+/// channel's gain and offset against a reference, from a capture with every probe on one node; with a square wave of known amplitude, absolute gains.</summary>
 internal static class CalibrateVerb
 {
     /// <summary>Exit code when the capture was read but the probes did not see one usable signal; nothing is written.</summary>
@@ -17,17 +19,64 @@ internal static class CalibrateVerb
         var reference = new Option<string?>("--reference") { Description = "The channel the others are measured against. Default: the first channel." };
         var note = new Option<string?>("--note") { Description = "Free text kept in the file, for example which node the probes sat on." };
         var json = new Option<string?>("--json") { Description = "Write the calibration file (docs/probe-calibration.md) here, for fit --calibration." };
-        var command = new Command("calibrate", "Measure each channel's gain and offset against a reference from a capture with every probe on one node.");
+        var amplitude = new Option<string?>("--known-amplitude") { Description = "The capture is a square wave of this known peak-to-peak amplitude (high level minus low level), for example 10V: the reference channel's absolute gain is measured too. Needs --amplitude-accuracy." };
+        var accuracy = new Option<string?>("--amplitude-accuracy") { Description = "The known amplitude's relative accuracy, one standard deviation, for example 0.1% or 0.001 (a worst-case ± limit L counts as L/√3)." };
+        var command = new Command("calibrate", "Measure each channel's gain and offset against a reference from a capture with every probe on one node; with a square wave of known amplitude, the absolute gains.");
         command.Arguments.Add(files);
         command.Options.Add(reference);
         command.Options.Add(note);
+        command.Options.Add(amplitude);
+        command.Options.Add(accuracy);
         command.Options.Add(json);
-        command.SetAction(parse => Run(console, parse.GetValue(files) ?? [], parse.GetValue(reference), parse.GetValue(note), parse.GetValue(json)));
+        command.SetAction(parse => Run(console, parse.GetValue(files) ?? [], parse.GetValue(reference), parse.GetValue(note), parse.GetValue(amplitude), parse.GetValue(accuracy), parse.GetValue(json)));
         return command;
     }
 
-    private static int Run(CliConsole console, string[] files, string? reference, string? note, string? jsonPath)
+    /// <summary>Reads --known-amplitude and --amplitude-accuracy: both or neither, a positive amplitude, an accuracy strictly between 0 and 1.</summary>
+    private static bool TryKnownAmplitude(string? amplitudeText, string? accuracyText, out double? amplitudeVolts, out double accuracy, out string error)
     {
+        (amplitudeVolts, accuracy, error) = (null, 0, string.Empty);
+        if (amplitudeText is null && accuracyText is null)
+        {
+            return true;
+        }
+
+        if (amplitudeText is null)
+        {
+            error = "--amplitude-accuracy: give it with --known-amplitude, the square wave's peak-to-peak amplitude.";
+            return false;
+        }
+
+        if (!ValueNotation.TryParse(amplitudeText, Quantity.Voltage, out var volts, out var message) || !(volts > 0))
+        {
+            error = $"--known-amplitude {amplitudeText}: {message ?? "expected a positive peak-to-peak amplitude, for example 10V"}.";
+            return false;
+        }
+
+        if (accuracyText is null)
+        {
+            error = "--known-amplitude: also give --amplitude-accuracy, the amplitude's relative accuracy (for example 0.1%); an absolute gain is only as good as the amplitude it is measured against.";
+            return false;
+        }
+
+        if (!ValueNotation.TryParse(accuracyText, Quantity.Fraction, out accuracy, out message) || !(accuracy > 0 && accuracy < 1))
+        {
+            error = $"--amplitude-accuracy {accuracyText}: {message ?? "expected a relative accuracy above 0 and below 1, for example 0.1% or 0.001"}.";
+            return false;
+        }
+
+        amplitudeVolts = volts;
+        return true;
+    }
+
+    private static int Run(CliConsole console, string[] files, string? reference, string? note, string? amplitudeText, string? accuracyText, string? jsonPath)
+    {
+        if (!TryKnownAmplitude(amplitudeText, accuracyText, out var amplitudeVolts, out var accuracy, out var amplitudeError))
+        {
+            console.Error.WriteLine(amplitudeError);
+            return PatchproofCommandLine.BadInput;
+        }
+
         var captureResult = CaptureReader.ReadFiles(files);
         if (!captureResult.TryGetValue(out var capture))
         {
@@ -39,7 +88,7 @@ internal static class CalibrateVerb
             return PatchproofCommandLine.BadInput;
         }
 
-        var options = new ProbeCalibrationOptions { ReferenceChannel = reference, Note = note ?? "" };
+        var options = new ProbeCalibrationOptions { ReferenceChannel = reference, Note = note ?? "", KnownAmplitudeVolts = amplitudeVolts, KnownAmplitudeRelativeSd = accuracy };
         var result = ProbeCalibrator.Calibrate(capture, files, options, TimeProvider.System);
         var invariant = CultureInfo.InvariantCulture;
         if (result.Calibration is { } calibration)
@@ -50,6 +99,17 @@ internal static class CalibrateVerb
                 console.Output.WriteLine(channel.Channel == calibration.ReferenceChannel
                     ? $"  {channel.Channel}  gain 1 (reference)"
                     : string.Create(invariant, $"  {channel.Channel}  gain {channel.Gain:0.00000} ± {channel.GainSd:0.00000} ({100 * (channel.Gain - 1):+0.000;-0.000} %), offset {1000 * channel.OffsetVolts:+0.0;-0.0} ± {1000 * channel.OffsetSdVolts:0.0} mV, residual {1000 * channel.ResidualRmsVolts:0.0} mV rms (expected {1000 * channel.ExpectedResidualRmsVolts:0.0}), correlation {channel.Correlation:0.000000}"));
+            }
+
+            if (calibration.Absolute is { } absolute)
+            {
+                console.Output.WriteLine(string.Create(invariant, $"Absolute gains against the {absolute.KnownAmplitudeVolts:0.####} V step (accuracy ± {100 * absolute.KnownAmplitudeRelativeSd:0.###} %), levels {absolute.LowLevelVolts:0.0000} V and {absolute.HighLevelVolts:0.0000} V on {calibration.ReferenceChannel}:"));
+                foreach (var channel in calibration.Channels)
+                {
+                    var gain = calibration.AbsoluteGainOf(channel);
+                    var sd = gain * Math.Sqrt((channel.LogGainSd * channel.LogGainSd) + (absolute.ReferenceLogGainSd * absolute.ReferenceLogGainSd));
+                    console.Output.WriteLine(string.Create(invariant, $"  {channel.Channel}  absolute gain {gain:0.00000} ± {sd:0.00000} ({100 * (gain - 1):+0.000;-0.000} %)"));
+                }
             }
         }
 

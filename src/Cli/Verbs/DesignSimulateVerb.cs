@@ -10,7 +10,8 @@ using Patchproof.Core.Simulation.Synthesis;
 
 namespace Patchproof.Cli.Verbs;
 
-/// <summary><c>patchproof design simulate FILE --t-end 50ms --out capture.csv [--faults R3=+10%,...] [--channels CH1=x,...] [--seed 1] ...</c>: a synthetic capture of a board.</summary>
+/// <summary><c>patchproof design simulate FILE --t-end 50ms --out capture.csv [--faults R3=+10%,...] [--channels CH1=x,...] [--seed 1] ...</c>: a synthetic capture of a board;
+/// with <c>--square-wave 10V@-4V</c>, a calibration capture of every probe on a reference square wave instead.</summary>
 internal static class DesignSimulateVerb
 {
     public static Command Create(CliConsole console)
@@ -111,10 +112,26 @@ internal static class DesignSimulateVerb
             deviations[id] = deviation;
         }
 
-        BuiltInTargets.TryFind(design.Model?.Name, out var target);
-        var system = BoardOdeSystem.Create(design, faults.NonIdealities);
         var interval = duration / settings.Samples;
-        var trace = BoardSimulator.Simulate(system, system.ParameterVector(deviations.ToImmutable()), system.InitialState(target), settle, interval * (settings.Samples - 1), interval);
+        var square = settings.SquareWave is not null;
+        BoardTrace trace;
+        if (square)
+        {
+            if (!TrySquareWave(settings, out var peakToPeak, out var low, out var period, out var edge, out var squareError))
+            {
+                console.Error.WriteLine(squareError);
+                return PatchproofCommandLine.BadInput;
+            }
+
+            trace = SquareWaveSource.Create(peakToPeak, low, period, edge, interval, settings.Samples, random.NextDouble() * period);
+        }
+        else
+        {
+            BuiltInTargets.TryFind(design.Model?.Name, out var target);
+            var system = BoardOdeSystem.Create(design, faults.NonIdealities);
+            trace = BoardSimulator.Simulate(system, system.ParameterVector(deviations.ToImmutable()), system.InitialState(target), settle, interval * (settings.Samples - 1), interval);
+        }
+
         if (trace.Status is not (SolveStatus.Succeeded or SolveStatus.StoppedByEvent))
         {
             console.Error.WriteLine($"{path}: the board simulation stopped early: {trace.Message}");
@@ -124,8 +141,9 @@ internal static class DesignSimulateVerb
         var channels = ImmutableArray.CreateBuilder<ScopeChannelSettings>();
         foreach (var (name, probed) in channelPairs)
         {
-            var sign = probed.StartsWith('-') ? -1 : 1;
-            var variable = probed.TrimStart('-', '+');
+            // On a square wave every probe sits on the source: the channel's variable only names it.
+            var sign = !square && probed.StartsWith('-') ? -1 : 1;
+            var variable = square ? SquareWaveSource.StateName : probed.TrimStart('-', '+');
             var volts = trace.Volts[trace.StateNames.IndexOf(variable)];
             var (span, center) = AutoWindow(volts.Select(value => sign * value));
             var window = windowPairs.FirstOrDefault(pair => string.Equals(pair.Key, name, StringComparison.OrdinalIgnoreCase));
@@ -191,6 +209,39 @@ internal static class DesignSimulateVerb
         return warnings == 0 ? PatchproofCommandLine.Success : DesignVerb.DoneWithWarnings;
     }
 
+    /// <summary>Reads --square-wave PEAK-TO-PEAK@LOW, --square-period and --edge-time.</summary>
+    private static bool TrySquareWave(SimulateSettings settings, out double peakToPeak, out double low, out double period, out double edge, out string error)
+    {
+        (peakToPeak, low, period, edge, error) = (0, 0, 0, 0, string.Empty);
+        var parts = settings.SquareWave!.Split('@');
+        string? message = null;
+        if (parts.Length > 2 || !ValueNotation.TryParse(parts[0], Quantity.Voltage, out peakToPeak, out message) || !(peakToPeak > 0)
+            || (parts.Length == 2 && !ValueNotation.TryParse(parts[1], Quantity.Voltage, out low, out message)))
+        {
+            error = $"--square-wave {settings.SquareWave}: {message ?? "the peak-to-peak amplitude must be positive"}; expected PEAK-TO-PEAK or PEAK-TO-PEAK@LOW-LEVEL, for example 10V@-4V.";
+            return false;
+        }
+
+        if (parts.Length == 1)
+        {
+            low = -peakToPeak / 2;
+        }
+
+        if (!ValueNotation.TryParse(settings.SquarePeriod, Quantity.Time, out period, out message) || !(period > 0))
+        {
+            error = $"--square-period {settings.SquarePeriod}: {message ?? "must be positive"}.";
+            return false;
+        }
+
+        if (!ValueNotation.TryParse(settings.EdgeTime, Quantity.Time, out edge, out message) || edge < 0 || edge >= period / 4)
+        {
+            error = $"--edge-time {settings.EdgeTime}: {message ?? "must be at least 0 and well below a quarter of the period"}.";
+            return false;
+        }
+
+        return true;
+    }
+
     /// <summary>Reads CH1=+1.5%,CH2=-0.8% into gains (1.015, 0.992) of the named channels.</summary>
     private static bool TryProbeGains(string? text, IReadOnlyList<string> channelNames, out Dictionary<string, double> gains, out string error)
     {
@@ -247,7 +298,7 @@ internal static class DesignSimulateVerb
         return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
     }
 
-    private sealed record SimulateSettings(string? Faults, string Duration, string? Settle, int Samples, string? Channels, string Noise, int Seed, string? Windows, string ProbeOffsets, string? ProbeGains, double? TriggerFraction, double PartSpread, string Style, string Output);
+    private sealed record SimulateSettings(string? Faults, string Duration, string? Settle, int Samples, string? Channels, string Noise, int Seed, string? Windows, string ProbeOffsets, string? ProbeGains, double? TriggerFraction, double PartSpread, string Style, string Output, string? SquareWave, string SquarePeriod, string EdgeTime);
 
     private sealed class SimulateOptions
     {
@@ -265,8 +316,11 @@ internal static class DesignSimulateVerb
         private readonly Option<double> partSpread = new("--part-spread") { Description = "Healthy spread of every part: a Gaussian with sd = SPREAD * tolerance / 3 (default 0: nominal).", DefaultValueFactory = _ => 0.0 };
         private readonly Option<string> style = new("--style") { Description = "CSV dialect: comma, semicolon, semicolon-decimal-comma, units-row, tab.", DefaultValueFactory = _ => "comma" };
         private readonly Option<string> output = new("--out") { Description = "The capture file to write.", Required = true };
+        private readonly Option<string?> squareWave = new("--square-wave") { Description = "Record a reference square wave on every channel instead of the board, as PEAK-TO-PEAK[@LOW-LEVEL] (10V@-4V; default low level -PEAK-TO-PEAK/2): a calibration capture for calibrate --known-amplitude. Faults and part spread are then ignored." };
+        private readonly Option<string> squarePeriod = new("--square-period") { Description = "The square wave's period (default 1ms).", DefaultValueFactory = _ => "1 ms" };
+        private readonly Option<string> edgeTime = new("--edge-time") { Description = "The square wave's RC edge time constant (default 2us).", DefaultValueFactory = _ => "2 us" };
 
-        public IEnumerable<Option> All => [faults, duration, settle, samples, channels, noise, seed, windows, probeOffsets, probeGains, trigger, partSpread, style, output];
+        public IEnumerable<Option> All => [faults, duration, settle, samples, channels, noise, seed, windows, probeOffsets, probeGains, trigger, partSpread, style, output, squareWave, squarePeriod, edgeTime];
 
         public SimulateSettings Read(ParseResult parse) => new(
             parse.GetValue(faults),
@@ -282,6 +336,9 @@ internal static class DesignSimulateVerb
             parse.GetValue(trigger),
             parse.GetValue(partSpread),
             parse.GetValue(style)!,
-            parse.GetValue(output)!);
+            parse.GetValue(output)!,
+            parse.GetValue(squareWave),
+            parse.GetValue(squarePeriod)!,
+            parse.GetValue(edgeTime)!);
     }
 }

@@ -37,7 +37,9 @@ public static class DesignDiagnosisBuilder
     /// null when the fit estimated the gains itself, so that their uncertainty is already in its covariance.</param>
     /// <param name="calibratedChannels">Channels whose gains a calibration capture measured against one reference: their columns are
     /// marked <see cref="DiagnosisColumn.PinnedByCalibration"/>, and they share one more column, the reference probe's own error.</param>
-    /// <param name="commonGainSd">That shared column's log-gain prior sd (the probe tolerance's).</param>
+    /// <param name="commonGainSd">That shared column's log-gain prior sd (the probe tolerance's, or the measured reference gain's).</param>
+    /// <param name="commonGainMeasured">True when an absolute calibration measured that shared gain against a known amplitude: its
+    /// column is then <see cref="DiagnosisColumn.PinnedByCalibration"/> too, so no gain stays loose.</param>
     /// <returns>The rows, columns and covariance.</returns>
     public static DiagnosisProblem Build(
         BoardDesign design,
@@ -47,7 +49,8 @@ public static class DesignDiagnosisBuilder
         IReadOnlyDictionary<string, string> channelOfVariable,
         IReadOnlyDictionary<string, double>? gainSdOfChannel,
         IReadOnlyCollection<string>? calibratedChannels = null,
-        double commonGainSd = 0)
+        double commonGainSd = 0,
+        bool commonGainMeasured = false)
     {
         var variables = design.Variables.Select(v => v.Name).ToList();
         bool Observed(string variable) => channelOfVariable.ContainsKey(variable);
@@ -160,7 +163,10 @@ public static class DesignDiagnosisBuilder
             columns.Add(DiagnosisColumn.ForChannelGain("common", Math.Exp(2 * commonGainSd) - 1, entries, commonGainSd) with
             {
                 Id = DiagnosisColumn.CommonGainId,
-                Label = "the gain every calibrated probe shares (the reference probe's own error)",
+                Label = commonGainMeasured
+                    ? "the gain every calibrated probe shares (the reference probe's absolute gain, measured against a known amplitude)"
+                    : "the gain every calibrated probe shares (the reference probe's own error)",
+                PinnedByCalibration = commonGainMeasured,
             });
         }
 

@@ -15,7 +15,9 @@ public sealed record BoardFitOptions
     public IReadOnlyDictionary<string, double> CalibratedGainSd { get; init; } = new Dictionary<string, double>();
 
     /// <summary>A probe calibration (every probe on one node) of the scope and probes that recorded the capture; null for none.
-    /// Its relative gains divide the channels it names, and their priors shrink from the probe tolerance to the calibration's.</summary>
+    /// Its relative gains divide the channels it names, and their priors shrink from the probe tolerance to the calibration's; an
+    /// absolute calibration (<see cref="ProbeCalibration.IsAbsolute"/>) divides them by their absolute gains and also sets the
+    /// shared reference gain's prior to its measured sd.</summary>
     public ProbeCalibration? Calibration { get; init; }
 
     /// <summary>Log-gain sd added to a calibrated channel's own, for what the calibration capture cannot see: gain drift between the

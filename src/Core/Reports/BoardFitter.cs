@@ -171,7 +171,7 @@ public static class BoardFitter
 
         progress.Stage(progress.Diagnosis, "part diagnosis");
         var channelOfVariable = channelIndex.ToDictionary(c => c.Assignment.Variable, c => c.Channel.Name);
-        var diagnosisProblem = DesignDiagnosisBuilder.Build(design, terms, field, fit, channelOfVariable, gains.LogSds, gains.CalibratedChannels, gains.CommonLogSd);
+        var diagnosisProblem = DesignDiagnosisBuilder.Build(design, terms, field, fit, channelOfVariable, gains.LogSds, gains.CalibratedChannels, gains.CommonLogSd, gains.CommonIsMeasured);
         var diagnosis = PartDiagnoser.Diagnose(diagnosisProblem);
         if (diagnosis.Outcome is DiagnosisOutcome.NoExplanationFits)
         {

@@ -4,6 +4,7 @@ using Patchproof.Core.Circuits;
 using Patchproof.Core.Circuits.Files;
 using Patchproof.Core.Estimation.MultipleShooting;
 using Patchproof.Core.Simulation;
+using Patchproof.Core.Simulation.Synthesis;
 using Patchproof.TestSupport;
 
 namespace Patchproof.Core.Tests.Reports;
@@ -48,6 +49,16 @@ internal static class SyntheticBoardCapture
         var channels = probeGains.Select((gain, c) => new CaptureChannel($"CH{c + 1}", "V",
             clean.Select(v => (float)(Math.Round(((gain * v) + (0.005 * sd * GaussianNoise.Next(random))) / step) * step)).ToArray(), "calibration.csv", c + 2)).ToList();
         return new Capture(new UniformTimeBase(0, dt, count), channels, []);
+    }
+
+    /// <summary>An absolute calibration capture: every channel on a square wave of <paramref name="peakToPeakVolts"/> (RC edges of
+    /// 2 µs, period 1 ms, 25 000 samples over 20 ms) through its probe gain, one 8-bit window of ±8 V, noise of
+    /// <paramref name="noiseVolts"/>.</summary>
+    public static Capture SimulateSquareWaveCalibration(int seed, double[] probeGains, double peakToPeakVolts = 10, double noiseVolts = 0.02)
+    {
+        var trace = SquareWaveSource.Create(peakToPeakVolts, -0.4 * peakToPeakVolts, 1e-3, 2e-6, 8e-7, 25_000, phaseSeconds: 3.1e-4);
+        var channels = probeGains.Select((gain, c) => new ScopeChannelSettings($"CH{c + 1}", SquareWaveSource.StateName, 1, gain, 0.01 * (c - 1), 0, 16)).ToImmutableArray();
+        return CaptureSynthesizer.Synthesize(trace, new CaptureSynthesisOptions(channels, noiseVolts, seed, 0)).Capture;
     }
 
     private static (OdeSolution Run, double IntervalSeconds, int Count) Trace(BoardDesign asBuilt, double problemUnits)

@@ -11,12 +11,18 @@ namespace Patchproof.Core.Captures.Calibration;
 /// per channel with <c>channel</c>, <c>gain</c>, <c>gainSd</c>, <c>offsetVolts</c>, <c>offsetSdVolts</c>,
 /// <c>correlation</c>, <c>residualRmsVolts</c>, <c>expectedResidualRmsVolts</c>, <c>quantizationStepVolts</c>.
 /// Required: format, version, referenceChannel and, per channel, channel, gain and gainSd; the rest default to 0 or empty.</para>
+/// <para>Absolute gains add two optional fields: <c>gainScale</c> (<c>relative</c>, the default, or <c>absolute</c>) and, for absolute gains,
+/// <c>knownAmplitude</c>: <c>volts</c>, <c>relativeSd</c>, <c>highLevelVolts</c>, <c>lowLevelVolts</c>, <c>referenceGain</c>
+/// and <c>referenceGainSd</c> (required), <c>measuredSdVolts</c> and <c>plateauSamples</c> (default 0). The channels' gains
+/// stay relative to the reference, so the addition is compatible: an older reader warns that it ignored the two fields and
+/// uses the relative gains, and a relative calibration is written exactly as before, without them.</para>
 /// <para>Every error names the file, line and column; an unknown field is a warning (a misspelt <c>gainsd</c> would
 /// otherwise pass silently). A file that fails to read changes nothing.</para>
 /// </remarks>
 public static class ProbeCalibrationFile
 {
-    private static readonly string[] TopFields = ["format", "version", "createdAt", "note", "referenceChannel", "sampleCount", "durationSeconds", "sourceFiles", "channels"];
+    private static readonly string[] TopFields = ["format", "version", "createdAt", "note", "referenceChannel", "sampleCount", "durationSeconds", "sourceFiles", "channels", "gainScale", "knownAmplitude"];
+    private static readonly string[] AmplitudeFields = ["volts", "relativeSd", "highLevelVolts", "lowLevelVolts", "measuredSdVolts", "plateauSamples", "referenceGain", "referenceGainSd"];
     private static readonly string[] ChannelFields = ["channel", "gain", "gainSd", "offsetVolts", "offsetSdVolts", "correlation", "residualRmsVolts", "expectedResidualRmsVolts", "quantizationStepVolts"];
 
     /// <summary>The calibration as indented JSON.</summary>
@@ -35,6 +41,21 @@ public static class ProbeCalibrationFile
             writer.WriteString("referenceChannel", calibration.ReferenceChannel);
             writer.WriteNumber("sampleCount", calibration.SampleCount);
             writer.WriteNumber("durationSeconds", calibration.DurationSeconds);
+            if (calibration.Absolute is { } absolute)
+            {
+                writer.WriteString("gainScale", "absolute");
+                writer.WriteStartObject("knownAmplitude");
+                writer.WriteNumber("volts", absolute.KnownAmplitudeVolts);
+                writer.WriteNumber("relativeSd", absolute.KnownAmplitudeRelativeSd);
+                writer.WriteNumber("highLevelVolts", absolute.HighLevelVolts);
+                writer.WriteNumber("lowLevelVolts", absolute.LowLevelVolts);
+                writer.WriteNumber("measuredSdVolts", absolute.MeasuredAmplitudeSdVolts);
+                writer.WriteNumber("plateauSamples", absolute.PlateauSampleCount);
+                writer.WriteNumber("referenceGain", absolute.ReferenceGain);
+                writer.WriteNumber("referenceGainSd", absolute.ReferenceGainSd);
+                writer.WriteEndObject();
+            }
+
             writer.WriteStartArray("sourceFiles");
             foreach (var file in calibration.SourceFiles)
             {
@@ -142,7 +163,6 @@ public static class ProbeCalibrationFile
                 return null;
             }
 
-            WarnUnknown(root, "$", TopFields);
             var format = String(root, "$", "format", required: true);
             if (format is not null && format != ProbeCalibration.FormatName)
             {
@@ -156,6 +176,9 @@ public static class ProbeCalibrationFile
                 Error("$.version", string.Create(CultureInfo.InvariantCulture, $"version {version} is not supported; this program reads version {ProbeCalibration.FormatVersion}"));
                 return null;
             }
+
+            WarnUnknown(root, "$", TopFields);
+            var absolute = ReadGainScale(root);
 
             var created = DateTimeOffset.MinValue;
             var createdText = String(root, "$", "createdAt", required: false);
@@ -244,7 +267,78 @@ public static class ProbeCalibrationFile
 
             return Errors.Count > 0 || reference is null
                 ? null
-                : new ProbeCalibration(reference, channels, (int)sampleCount, duration, sources, created, note);
+                : new ProbeCalibration(reference, channels, (int)sampleCount, duration, sources, created, note) { Absolute = absolute };
+        }
+
+        /// <summary><c>gainScale</c> (default relative) and, for absolute gains, <c>knownAmplitude</c>; null for relative gains or on an error.</summary>
+        private KnownAmplitudeReference? ReadGainScale(JsonElement root)
+        {
+            var scale = String(root, "$", "gainScale", required: false) ?? "relative";
+            if (scale == "relative")
+            {
+                if (root.TryGetProperty("knownAmplitude", out _))
+                {
+                    Error("$.knownAmplitude", "\"knownAmplitude\" belongs to absolute gains; this file's gains are relative (\"gainScale\" is missing or \"relative\")");
+                }
+
+                return null;
+            }
+
+            if (scale != "absolute")
+            {
+                Error("$.gainScale", $"expected \"relative\" or \"absolute\", found \"{scale}\"");
+                return null;
+            }
+
+            if (!root.TryGetProperty("knownAmplitude", out var item) || item.ValueKind is not JsonValueKind.Object)
+            {
+                Error(root.TryGetProperty("knownAmplitude", out _) ? "$.knownAmplitude" : "$", "absolute gains need \"knownAmplitude\": an object with \"volts\", \"relativeSd\", \"highLevelVolts\", \"lowLevelVolts\", \"referenceGain\" and \"referenceGainSd\"");
+                return null;
+            }
+
+            const string path = "$.knownAmplitude";
+            WarnUnknown(item, path, AmplitudeFields);
+            var volts = Number(item, path, "volts", required: true);
+            if (volts is <= 0)
+            {
+                Error(path + ".volts", "expected the known peak-to-peak amplitude: a positive number of volts");
+            }
+
+            var relativeSd = NonNegative(item, path, "relativeSd", required: true);
+            if (relativeSd is >= 1)
+            {
+                Error(path + ".relativeSd", "expected the amplitude's relative accuracy as a fraction below 1, for example 0.001 for 0.1 %");
+            }
+
+            var high = Number(item, path, "highLevelVolts", required: true);
+            var low = Number(item, path, "lowLevelVolts", required: true);
+            if (high is not null && low is not null && !(high > low))
+            {
+                Error(path + ".highLevelVolts", "the high level must lie above the low level");
+            }
+
+            var measuredSd = NonNegative(item, path, "measuredSdVolts", required: false) ?? 0;
+            var plateaus = Number(item, path, "plateauSamples", required: false) ?? 0;
+            if (plateaus < 0 || plateaus != Math.Floor(plateaus) || plateaus > int.MaxValue)
+            {
+                Error(path + ".plateauSamples", "expected a whole number of samples, 0 or more");
+            }
+
+            var gain = Number(item, path, "referenceGain", required: true);
+            if (gain is <= 0)
+            {
+                Error(path + ".referenceGain", "expected a positive gain (the reference channel's reading per volt at the probe tip)");
+            }
+
+            var gainSd = NonNegative(item, path, "referenceGainSd", required: true);
+            if (gain is > 0 && relativeSd is >= 0 and < 1 && gainSd is not null && gainSd < gain * relativeSd * (1 - 1e-9))
+            {
+                Error(path + ".referenceGainSd", "the reference gain's sd is smaller than the amplitude's own accuracy allows (referenceGain · relativeSd)");
+            }
+
+            return volts is null || relativeSd is null || gain is null || gainSd is null || high is null || low is null
+                ? null
+                : new KnownAmplitudeReference(volts.Value, relativeSd.Value, high.Value, low.Value, measuredSd, (int)Math.Max(0, Math.Min(plateaus, int.MaxValue)), gain.Value, gainSd.Value);
         }
 
         private ChannelCalibration? ReadChannel(JsonElement item, string path)

@@ -14,6 +14,15 @@ public enum ProbeCalibrationStatus
 
     /// <summary>The capture has fewer than two voltage channels, or too few samples.</summary>
     TooFewChannels,
+
+    /// <summary>An absolute calibration was asked for, but a channel did not record a square wave of two flat levels.</summary>
+    NotTwoLevels,
+
+    /// <summary>An absolute calibration was asked for, but too few plateaus or settled samples per level remain once the edges are left out.</summary>
+    TooFewPlateauSamples,
+
+    /// <summary>An absolute calibration was asked for, but a channel clipped: a clipped level is not the source's level.</summary>
+    LevelsClipped,
 }
 
 /// <summary>The outcome of a probe calibration: the measured gains (also when a check failed, so a person can see why) and the findings.</summary>

@@ -22,6 +22,12 @@ namespace Patchproof.Core.Captures.Calibration;
 /// errors, with RMS √(σ_c² + b² σ_ref²). A residual RMS more than <see cref="ProbeCalibrationOptions.ResidualRatioLimit"/>
 /// times that, or a correlation below <see cref="ProbeCalibrationOptions.MinimumCorrelation"/>, means another node, a
 /// loose ground, an AC-coupled channel or a delay between channels. Samples where any channel clipped are left out.</para>
+/// <para>Absolute gain: when the capture is a square wave of known peak-to-peak amplitude
+/// (<see cref="ProbeCalibrationOptions.KnownAmplitudeVolts"/>), each channel's two levels are measured
+/// (<see cref="SquareWaveLevels"/>) and the reference channel's gain is its measured step over the known one, with the
+/// amplitude's accuracy added in quadrature to the measurement's sd. The other channels keep their Deming gains against the
+/// reference; a plateau's quantization error is the same in every block, so each of their sds also gains the part of the
+/// two channels' quantization error that the averaging leaves. No channel may clip: a clipped level is not the source's.</para>
 /// <para>References: [1] W. E. Deming, Statistical Adjustment of Data, Wiley 1943. [2] W. A. Fuller, Measurement Error
 /// Models, Wiley 1987, section 1.3. [3] H. R. Künsch, The jackknife and the bootstrap for general stationary
 /// observations, Ann. Statist. 17 (1989) 1217-1241.</para>
@@ -50,6 +56,8 @@ public static class ProbeCalibrator
         ArgumentNullException.ThrowIfNull(clock);
         Preconditions.CheckArgumentRange(nameof(options), options.JackknifeBlocks >= 2, "the jackknife needs at least two blocks");
         Preconditions.CheckArgumentRange(nameof(options), options.ResidualRatioLimit > 1 && options.MinimumCorrelation is > 0 and < 1 && options.MinimumSignalSteps > 0, "a check limit is out of range");
+        Preconditions.CheckArgumentRange(nameof(options), options.KnownAmplitudeVolts is null || (double.IsFinite(options.KnownAmplitudeVolts.Value) && options.KnownAmplitudeVolts > 0), "the known amplitude must be a positive number of volts");
+        Preconditions.CheckArgumentRange(nameof(options), options.KnownAmplitudeRelativeSd is >= 0 and < 1, "the known amplitude's relative accuracy must be a fraction between 0 and 1");
 
         var findings = new List<string>();
         var voltage = capture.Channels.Where(c => c.IsVoltage).ToList();
@@ -137,8 +145,17 @@ public static class ProbeCalibrator
             }
         }
 
+        KnownAmplitudeReference? absolute = null;
+        if (options.KnownAmplitudeVolts is { } known)
+        {
+            (status, absolute) = MeasureAbsolute(capture, ordered, kept.Length, signals, errors, channels, known, options, status, findings);
+        }
+
         var calibration = new ProbeCalibration(reference.Name, channels, kept.Length, kept.Length * capture.TimeBase.DurationSeconds / Math.Max(1, capture.SampleCount),
-            sourceFiles.ToArray(), clock.GetUtcNow(), options.Note);
+            sourceFiles.ToArray(), clock.GetUtcNow(), options.Note)
+        {
+            Absolute = absolute,
+        };
         return new ProbeCalibrationResult(status, calibration, findings);
     }
 
@@ -151,6 +168,63 @@ public static class ProbeCalibrator
         ArgumentNullException.ThrowIfNull(channel);
         ArgumentNullException.ThrowIfNull(options);
         return channel.ResidualRmsVolts <= options.ResidualRatioLimit * channel.ExpectedResidualRmsVolts && channel.Correlation >= options.MinimumCorrelation;
+    }
+
+    /// <summary>The reference's absolute gain from the square wave's levels; widens the other channels' gain sds by their residual quantization error.</summary>
+    private static (ProbeCalibrationStatus Status, KnownAmplitudeReference? Absolute) MeasureAbsolute(
+        Capture capture,
+        List<CaptureChannel> ordered,
+        int keptCount,
+        List<double[]> signals,
+        List<(double Sigma, double Step)> errors,
+        List<ChannelCalibration> channels,
+        double knownVolts,
+        ProbeCalibrationOptions options,
+        ProbeCalibrationStatus status,
+        List<string> findings)
+    {
+        var invariant = CultureInfo.InvariantCulture;
+        if (keptCount < capture.SampleCount)
+        {
+            var clipped = CaptureInspection.Run(capture).Where(check => check.Id == "clipping" && check.Channel is not null).Select(check => check.Channel!).Distinct().ToList();
+            findings.Add($"{(clipped.Count > 0 ? string.Join(", ", clipped) : "A channel")} clipped: a clipped level is not the source's level, so the absolute gain cannot be measured. Use a wider volts/div or a smaller amplitude, and record again.");
+            return (status is ProbeCalibrationStatus.Calibrated ? ProbeCalibrationStatus.LevelsClipped : status, null);
+        }
+
+        var levelOptions = options.Levels with { JackknifeBlocks = options.JackknifeBlocks };
+        var levels = signals.Select((signal, c) => SquareWaveLevels.Measure(signal, errors[c].Step, levelOptions)).ToList();
+        var failed = levels.Select((level, c) => (level, c)).Where(pair => !pair.level.IsUsable).ToList();
+        if (failed.Count > 0)
+        {
+            foreach (var (level, c) in failed)
+            {
+                findings.Add($"{ordered[c].Name} is not a usable square wave: {level.Message}. An absolute calibration needs every probe on a square wave of known amplitude (docs/probe-calibration.md).");
+            }
+
+            var problem = failed.Any(pair => pair.level.Problem is SquareWaveProblem.NotTwoLevels) ? ProbeCalibrationStatus.NotTwoLevels : ProbeCalibrationStatus.TooFewPlateauSamples;
+            return (status is ProbeCalibrationStatus.Calibrated ? problem : status, null);
+        }
+
+        var referenceLevels = levels[0];
+        var absolute = KnownAmplitudeReference.From(knownVolts, options.KnownAmplitudeRelativeSd, referenceLevels);
+        var referenceQuantization = referenceLevels.QuantizationSdVolts / referenceLevels.StepVolts;
+        for (var c = 1; c < channels.Count; c++)
+        {
+            // The relative gain is a ratio of the two channels' steps: both plateaus' fixed quantization errors enter it.
+            var own = levels[c].QuantizationSdVolts / levels[c].StepVolts;
+            var extra = Math.Abs(channels[c].Gain) * Math.Sqrt((own * own) + (referenceQuantization * referenceQuantization));
+            channels[c] = channels[c] with { GainSd = Math.Sqrt((channels[c].GainSd * channels[c].GainSd) + (extra * extra)) };
+        }
+
+        findings.Add(string.Create(invariant,
+            $"{ordered[0].Name} reads the {knownVolts:0.####} V step as {absolute.MeasuredAmplitudeVolts:0.####} ± {absolute.MeasuredAmplitudeSdVolts * 1000:0.0} mV ({referenceLevels.Plateaus} plateaus): absolute gain {absolute.ReferenceGain:0.00000} ± {absolute.ReferenceGainSd:0.00000}, of which the amplitude's stated accuracy is ± {absolute.ReferenceGain * options.KnownAmplitudeRelativeSd:0.00000}."));
+        if (Math.Abs(absolute.ReferenceGain - 1) > options.GainWarningDistance)
+        {
+            findings.Add(string.Create(invariant,
+                $"{ordered[0].Name} reads {absolute.ReferenceGain:0.###} times the stated amplitude: far more than any probe tolerance; check the probe-factor setting (1x against 10x) and the amplitude you gave."));
+        }
+
+        return (status, absolute);
     }
 
     /// <summary>Sample indices where no channel sits at a clipped level.</summary>
