@@ -22,6 +22,11 @@ run designs/qh-r1-gannet.json --faults M1=-4% --part-spread 0.5 --seed 14 --t-en
   --probe-gains "$gannet_probes" --out sample-captures/qh-r1-gannet.csv
 run designs/qh-r1-gannet.json --faults M1=-4% --part-spread 0.5 --seed 24 --t-end 20ms --style units-row \
   --channels CH1=x,CH2=x,CH3=x --probe-gains "$gannet_probes" --out sample-captures/qh-r1-gannet-probe-calibration.csv
+# The same probes on the bench's reference square wave: 10 V peak-to-peak from -4 V to +6 V, 1 kHz, stated to 0.1 %
+# (calibrate --known-amplitude 10V --amplitude-accuracy 0.1%), for an absolute calibration.
+run designs/qh-r1-gannet.json --seed 34 --t-end 20ms --style units-row --channels CH1=x,CH2=y,CH3=z \
+  --window CH1=16V@0.5V,CH2=16V@0.5V,CH3=16V@0.5V --probe-gains "$gannet_probes" \
+  --square-wave 10V@-4V --square-period 1ms --edge-time 2us --out sample-captures/qh-r1-gannet-square-wave-probe-calibration.csv
 # QH-D2 Dunlin: healthy damped oscillator, two channels, recorded from the initial kick.
 run designs/qh-d2-dunlin.json --part-spread 0.5 --seed 15 --settle 0s --trigger 0.05 --t-end 30ms --samples 20000 \
   --style tab --out sample-captures/qh-d2-dunlin.csv

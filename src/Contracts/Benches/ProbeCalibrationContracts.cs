@@ -26,7 +26,26 @@ public sealed record ProbeCalibrationSummary(Guid BenchId, string ReferenceChann
 
     /// <summary>What a person should know about the calibration, one sentence each (for example a gain far from 1).</summary>
     public IReadOnlyList<string> Findings { get; init; } = [];
+
+    /// <summary>For an absolute calibration (every probe on a square wave of known amplitude), the amplitude and the reference
+    /// channel's absolute gain; null for a relative one, whose reference gain stays unknown.</summary>
+    public ProbeCalibrationKnownAmplitudeSummary? KnownAmplitude { get; init; }
 }
+
+/// <summary>The known amplitude an absolute probe calibration was measured against, and what the reference channel read.</summary>
+/// <param name="AmplitudeVolts">The source's stated peak-to-peak amplitude.</param>
+/// <param name="AmplitudeRelativeSd">Its stated relative accuracy, one standard deviation (0.001 for 0.1 %).</param>
+/// <param name="HighLevelVolts">The reference channel's reading of the upper level.</param>
+/// <param name="LowLevelVolts">Its reading of the lower level.</param>
+/// <param name="ReferenceGain">The reference channel's absolute gain: measured step / known amplitude. A channel's absolute gain is its <c>gain</c> times this.</param>
+/// <param name="ReferenceGainSd">Its standard deviation, the amplitude's accuracy included.</param>
+public sealed record ProbeCalibrationKnownAmplitudeSummary(
+    double AmplitudeVolts,
+    double AmplitudeRelativeSd,
+    double HighLevelVolts,
+    double LowLevelVolts,
+    double ReferenceGain,
+    double ReferenceGainSd);
 
 /// <summary>One channel of a probe calibration as the server shows it.</summary>
 /// <param name="Channel">The channel name, for example <c>CH2</c>.</param>

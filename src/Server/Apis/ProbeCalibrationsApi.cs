@@ -239,6 +239,9 @@ internal static class ProbeCalibrationsApi
                 return new ProbeChannelCalibrationSummary(c.Channel, isReference, c.Gain, c.GainSd, c.OffsetVolts, c.OffsetSdVolts, c.Correlation, c.ResidualRmsVolts, c.ExpectedResidualRmsVolts, follows);
             }).ToList(),
             Findings = findings,
+            KnownAmplitude = calibration.Absolute is { } absolute
+                ? new ProbeCalibrationKnownAmplitudeSummary(absolute.KnownAmplitudeVolts, absolute.KnownAmplitudeRelativeSd, absolute.HighLevelVolts, absolute.LowLevelVolts, absolute.ReferenceGain, absolute.ReferenceGainSd)
+                : null,
         };
     }
 }

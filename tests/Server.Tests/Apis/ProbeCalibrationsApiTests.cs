@@ -121,6 +121,38 @@ public abstract class ProbeCalibrationsApiTests(ServerDatabase database)
     }
 
     [Fact]
+    public async Task Upload_AbsoluteCalibration_StoresItAsUploadedAndReturnsTheKnownAmplitude()
+    {
+        await using var api = ApiTest.Start(database);
+        var bench = await api.CreateBenchAsync("Bench 16");
+        var absolute = Calibration("square wave") with { Absolute = new KnownAmplitudeReference(10, 0.001, 6.1, -4.1, 0.003, 24_000, 1.02, 0.00107) };
+        var document = ProbeCalibrationFile.Write(absolute);
+
+        using var response = await PostAsync(api, bench.Id, document);
+        var listed = await api.Client.GetFromJsonAsync<List<ProbeCalibrationSummary>>($"/api/benches/{bench.Id}/probe-calibrations", ApiTest.Token);
+        var newest = await api.Client.GetStringAsync($"/api/benches/{bench.Id}/probe-calibrations/newest", ApiTest.Token);
+
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        var summary = (await response.Content.ReadFromJsonAsync<ProbeCalibrationSummary>(ApiTest.Token))!;
+        Assert.Equal(new ProbeCalibrationKnownAmplitudeSummary(10, 0.001, 6.1, -4.1, 1.02, 0.00107), summary.KnownAmplitude);
+        Assert.Equal(summary.KnownAmplitude, Assert.Single(listed!).KnownAmplitude);
+        Assert.Equal(document, newest);
+        Assert.Equal(absolute.Absolute, ProbeCalibrationFile.Read(newest).Value.Absolute);
+    }
+
+    [Fact]
+    public async Task Upload_RelativeCalibration_ReturnsNoKnownAmplitude()
+    {
+        await using var api = ApiTest.Start(database);
+        var bench = await api.CreateBenchAsync("Bench 17");
+
+        using var response = await PostAsync(api, bench.Id, ProbeCalibrationFile.Write(Calibration("relative")));
+
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        Assert.Null((await response.Content.ReadFromJsonAsync<ProbeCalibrationSummary>(ApiTest.Token))!.KnownAmplitude);
+    }
+
+    [Fact]
     public async Task List_BenchWithoutCalibration_IsEmpty()
     {
         await using var api = ApiTest.Start(database);
