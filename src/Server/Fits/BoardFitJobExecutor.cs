@@ -74,7 +74,10 @@ internal sealed class BoardFitJobExecutor(TimeProvider clock, ProbeCalibrationSt
 
         if (calibration is { } used)
         {
-            notes.Add($"Probe gains from the bench's newest probe calibration (uploaded {used.UploadedAt:yyyy-MM-dd HH:mm} UTC, reference {used.Calibration.ReferenceChannel}).");
+            notes.Add($"Probe gains from the bench's newest probe calibration (uploaded {used.UploadedAt:yyyy-MM-dd HH:mm} UTC, reference {used.Calibration.ReferenceChannel})"
+                + (used.Calibration.Absolute is { } absolute
+                    ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"; absolute gains, against a known amplitude of {absolute.KnownAmplitudeVolts:0.####} V.")
+                    : "."));
         }
         else if (benchCalibration is { } skipped)
         {

@@ -63,6 +63,27 @@ public sealed class BoardFitJobExecutorCalibrationTests : IDisposable
     }
 
     [Fact]
+    public async Task Execute_BenchWithAnAbsoluteCalibration_DividesByTheAbsoluteGainsAndSaysSo()
+    {
+        var store = new ProbeCalibrationStore(Options.Create(new PatchproofOptions { DataFolder = folder }), Clock);
+        var bench = Guid.NewGuid();
+        var absolute = Calibration(1.004) with { Absolute = new KnownAmplitudeReference(10, 0.001, 6.1, -4.1, 0.003, 24_000, 1.02, 0.00107) };
+        store.Save(bench, ProbeCalibrationFile.Write(absolute));
+        var input = Input(SyntheticBoardCaptures.Csv("qh-d2-dunlin.json", new Dictionary<string, double>(), seed: 41, problemUnits: 6)) with { BenchId = bench };
+
+        var outcome = await new BoardFitJobExecutor(Clock, store).ExecuteAsync(input, new Progress<FitJobProgress>(), TestContext.Current.CancellationToken);
+
+        Assert.Null(outcome.Error);
+        var document = FitResultJson.TryRead(outcome.Result!.Value);
+        Assert.NotNull(document);
+        Assert.Contains(document.Notes, n => n.EndsWith("absolute gains, against a known amplitude of 10 V.", StringComparison.Ordinal));
+        Assert.Equal(1.02, Assert.Single(document.Channels!, c => c.Channel == "CH1").Gain, 12);
+        var ch2 = Assert.Single(document.Channels!, c => c.Channel == "CH2");
+        Assert.Equal(1.004 * 1.02, ch2.Gain, 12);
+        Assert.StartsWith("absolute calibration against a 10 V step on CH1", ch2.GainSource, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Newest_BenchWithoutCalibrations_IsNull()
     {
         var store = new ProbeCalibrationStore(Options.Create(new PatchproofOptions { DataFolder = folder }), Clock);
