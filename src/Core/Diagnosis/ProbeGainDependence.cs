@@ -14,6 +14,9 @@ namespace Patchproof.Core.Diagnosis;
 /// <see cref="DiagnosisOptions.CalibratedGainLogSd"/>, a common gain for the reference probe's own error kept at the
 /// probe tolerance, and the rows corrected by the gains this capture already suggests (their posterior means under the
 /// winner): the answer a calibration would give if it found the probes where this capture puts them.</para>
+/// <para>Only loose gains count: an uncalibrated channel, or after a relative calibration the shared reference gain. An
+/// absolute calibration (a square wave of known amplitude) measures that shared gain too and pins its column, so with every
+/// channel calibrated absolutely no gain is loose and no finding carries a dependence.</para>
 /// </remarks>
 /// <param name="DependsOnProbeGains">True when the probe gains could explain the finding and their priors carry most of its uncertainty.</param>
 /// <param name="MimicCosineSquared">How closely probe gains can reproduce the part's effect (0 to 1).</param>
