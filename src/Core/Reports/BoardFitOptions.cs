@@ -36,6 +36,11 @@ public sealed record BoardFitOptions
     /// <summary>Fewer problem time units than this make the record too short to identify a system.</summary>
     public double MinimumProblemUnits { get; init; } = 5;
 
+    /// <summary>A channel whose residual RMS exceeds this many times its noise floor gets a warning that the fit does not
+    /// describe the capture (the report's findings are then unsafe). 5 by default: a fit that describes a capture leaves
+    /// about 1 to 2 (common practice: a reduced χ² well above 1 rejects the model).</summary>
+    public double MisfitNoiseRatioLimit { get; init; } = 5;
+
     /// <summary>Told each stage of the fit, each multiple-shooting iteration and each finished part of the comparison; null for
     /// none. Reports arrive on the fitting thread and their fractions never decrease.</summary>
     public IProgress<BoardFitProgress>? Progress { get; init; }

@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using System.Globalization;
 using Patchproof.Core.Captures;
 using Patchproof.Core.Captures.Checks;
 using Patchproof.Core.Circuits;
@@ -152,6 +153,8 @@ public static class BoardFitter
             warnings.Add($"The fit stopped before converging ({fit.ExitReason}); treat its numbers as rough.");
         }
 
+        warnings.AddRange(MisfitWarnings(shootingChannels, fit, options.MisfitNoiseRatioLimit));
+
         progress.Stage(progress.Checks, "structure and mapping checks");
         var structure = hidden.Count > 0
             ? StructureCheck.NotPerformed($"it needs every variable recorded, and {string.Join(", ", hidden.Select(j => variables[j]))} was not.")
@@ -208,6 +211,23 @@ public static class BoardFitter
 
         progress.Stage(1, "done");
         return ParseResult<FitReport>.ForValue(report);
+    }
+
+    /// <summary>One warning per channel whose fitted residual is many times its noise floor.</summary>
+    /// <remarks>A fit that describes the capture leaves residuals near the noise (a reduced χ² near 1); one that leaves
+    /// many times more does not describe it, whatever its parts say: most often a channel read as the wrong variable or
+    /// with the wrong sign, else a wiring fault or a disturbed recording.</remarks>
+    private static IEnumerable<string> MisfitWarnings(List<ShootingChannel> channels, MultipleShootingResult fit, double limit)
+    {
+        for (var c = 0; c < channels.Count; c++)
+        {
+            var ratio = fit.ResidualRmsVolts[c] / channels[c].NoiseSdVolts;
+            if (ratio > limit)
+            {
+                yield return string.Create(CultureInfo.InvariantCulture,
+                    $"The fitted design does not reproduce {channels[c].Name}: its residual is {fit.ResidualRmsVolts[c] * 1e3:0.#} mV rms against a noise floor of {channels[c].NoiseSdVolts * 1e3:0.#} mV ({ratio:0}x). Check which channel records which variable, and its sign (the channel mapping), then the wiring; the findings are unsafe.");
+            }
+        }
     }
 
     /// <summary>Equation-error starting values (coefficients, offsets, channel offsets in closed form) for a fully recorded board.</summary>

@@ -28,12 +28,14 @@ internal static class FitAccuracyComparison
             var channels = BenchmarkLorenz.Capture(10_001, seed);
             var whole = WholeFitBenchmarks.Run(channels, null).Shooting;
             var boardErrors = RelativeErrors([whole.Parameters[0], whole.Parameters[2], -whole.Parameters[6]]);
+            var watch = System.Diagnostics.Stopwatch.StartNew();
             var tiedFit = FitTied(channels);
+            var tiedSeconds = watch.Elapsed.TotalSeconds;
             var tiedErrors = RelativeErrors(tiedFit.Parameters);
             board.Add(boardErrors);
             tied.Add(tiedErrors);
             Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"seed {seed,2}: board {Format(boardErrors)} ({whole.Iterations} it); tied {Format(tiedErrors)} ({tiedFit.Iterations} it, se {Format(RelativeSd(tiedFit.StandardErrors))})"));
+                $"seed {seed,2}: board {Format(boardErrors)} ({whole.Iterations} it); tied {Format(tiedErrors)} ({tiedFit.Iterations} it, {tiedSeconds:0.000} s with its start, se {Format(RelativeSd(tiedFit.StandardErrors))})"));
         }
 
         Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"RMS over {seeds} seeds: board {Format(Rms(board))}; tied {Format(Rms(tied))}"));

@@ -22,6 +22,20 @@ public sealed class BoardFitterTests
         Assert.True(report.Quality.Converged, report.Quality.ExitReason);
         Assert.Equal(DiagnosisOutcome.WithinTolerance, report.Diagnosis.Outcome);
         Assert.Empty(report.Diagnosis.Findings);
+        Assert.DoesNotContain(report.Warnings, w => w.Contains("does not reproduce", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Fit_TwoChannelCaptureReadInFileOrder_WarnsThatTheFitDoesNotReproduceTheChannels()
+    {
+        // x and z recorded on CH1 and CH3; without a mapping the channels are taken in order, so CH3 is read as y.
+        // Neither the mapping check nor the structure check can run with a variable unrecorded: the residuals must say it.
+        var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 23, problemUnits: 10, recorded: [0, 2]);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions { CompareInvariants = false }, Clock).Value;
+
+        Assert.Contains(report.Warnings, w => w.Contains("does not reproduce CH3", StringComparison.Ordinal) && w.Contains("channel mapping", StringComparison.Ordinal));
     }
 
     [Fact]
