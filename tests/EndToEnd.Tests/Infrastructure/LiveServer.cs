@@ -1,27 +1,109 @@
-using System.Net;
-using Microsoft.AspNetCore.Hosting.Server;
-using Microsoft.AspNetCore.Hosting.Server.Features;
-using Microsoft.AspNetCore.Mvc.Testing;
-using Microsoft.Extensions.DependencyInjection;
+using System.Collections.Concurrent;
+using System.Diagnostics;
+using System.Text.RegularExpressions;
 
 namespace Patchproof.EndToEnd.Tests.Infrastructure;
 
-/// <summary>The real server on a free loopback port, with Kestrel, for a browser to talk to.</summary>
-public sealed class LiveServer : IAsyncLifetime
+/// <summary>The server as users run it, published in Release, in its own process on a free loopback port.</summary>
+/// <remarks>
+/// The project file publishes the server into <c>published-server/</c> beside the tests after each build (see
+/// Patchproof.EndToEnd.Tests.csproj), so the browser loads the trimmed, precompressed client that
+/// <c>dotnet run -c Release --project src/Server</c> serves, not the untrimmed build output. Each run gets a fresh
+/// data folder, seeded with the demo scenario on start. <c>PATCHPROOF_E2E_SERVER</c> names another server assembly
+/// to test, for example a build output, to compare figures.
+/// </remarks>
+public sealed partial class LiveServer : IAsyncLifetime
 {
-    private readonly WebApplicationFactory<Program> factory = new();
+    private static readonly TimeSpan StartTimeout = TimeSpan.FromMinutes(3);
+
+    private readonly string dataFolder = Path.Combine(Path.GetTempPath(), "patchproof-e2e-" + Guid.NewGuid().ToString("N"));
+    private readonly ConcurrentQueue<string> output = new();
+    private Process? process;
 
     /// <summary>The server's address, for example <c>http://127.0.0.1:41234/</c>.</summary>
     public Uri BaseAddress { get; private set; } = new("http://127.0.0.1/");
 
-    public ValueTask InitializeAsync()
+    /// <summary>The server assembly started: <c>PATCHPROOF_E2E_SERVER</c>, else the one published beside the tests.</summary>
+    public static string ServerAssembly { get; } = Environment.GetEnvironmentVariable("PATCHPROOF_E2E_SERVER") is { Length: > 0 } path
+        ? Path.GetFullPath(path)
+        : Path.Combine(AppContext.BaseDirectory, "published-server", "Patchproof.Server.dll");
+
+    public async ValueTask InitializeAsync()
     {
-        factory.UseKestrel(options => options.Listen(IPAddress.Loopback, 0));
-        factory.StartServer();
-        var addresses = factory.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()!.Addresses;
-        BaseAddress = new Uri(addresses.First().TrimEnd('/') + "/");
-        return ValueTask.CompletedTask;
+        if (!File.Exists(ServerAssembly))
+        {
+            throw new InvalidOperationException($"No server at {ServerAssembly}: building Patchproof.EndToEnd.Tests publishes it there.");
+        }
+
+        var start = new ProcessStartInfo(Environment.GetEnvironmentVariable("DOTNET_HOST_PATH") is { Length: > 0 } host ? host : "dotnet")
+        {
+            // The content root is the working folder: the published wwwroot and appsettings.json live there.
+            WorkingDirectory = Path.GetDirectoryName(ServerAssembly)!,
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        foreach (var argument in new[] { "exec", ServerAssembly, "--urls", "http://127.0.0.1:0" })
+        {
+            start.ArgumentList.Add(argument);
+        }
+
+        start.Environment["ASPNETCORE_ENVIRONMENT"] = "Production";
+        start.Environment["Patchproof__DataFolder"] = dataFolder;
+
+        var listening = new TaskCompletionSource<Uri>(TaskCreationOptions.RunContinuationsAsynchronously);
+        process = new Process { StartInfo = start, EnableRaisingEvents = true };
+        process.OutputDataReceived += (_, e) => OnOutput(e.Data, listening);
+        process.ErrorDataReceived += (_, e) => OnOutput(e.Data, listening);
+        process.Exited += (_, _) => listening.TrySetException(new InvalidOperationException(
+            $"The server stopped before listening (exit code {process.ExitCode}):\n{string.Join('\n', output)}"));
+        process.Start();
+        process.BeginOutputReadLine();
+        process.BeginErrorReadLine();
+
+        try
+        {
+            BaseAddress = await listening.Task.WaitAsync(StartTimeout);
+        }
+        catch (TimeoutException)
+        {
+            throw new InvalidOperationException($"The server did not listen within {StartTimeout}:\n{string.Join('\n', output)}");
+        }
     }
 
-    public async ValueTask DisposeAsync() => await factory.DisposeAsync();
+    public async ValueTask DisposeAsync()
+    {
+        if (process is not null)
+        {
+            if (!process.HasExited)
+            {
+                process.Kill(entireProcessTree: true);
+                await process.WaitForExitAsync();
+            }
+
+            process.Dispose();
+        }
+
+        if (Directory.Exists(dataFolder))
+        {
+            Directory.Delete(dataFolder, recursive: true);
+        }
+    }
+
+    private void OnOutput(string? line, TaskCompletionSource<Uri> listening)
+    {
+        if (line is null)
+        {
+            return;
+        }
+
+        output.Enqueue(line);
+        if (ListeningLine().Match(line) is { Success: true } match)
+        {
+            listening.TrySetResult(new Uri(match.Groups[1].Value.TrimEnd('/') + "/"));
+        }
+    }
+
+    [GeneratedRegex(@"Now listening on: (http://\S+)")]
+    private static partial Regex ListeningLine();
 }

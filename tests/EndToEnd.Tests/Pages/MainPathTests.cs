@@ -52,6 +52,11 @@ public sealed class MainPathTests(LiveServer server, Browser browser)
         var part = page.Locator(".finding .part").First;
         await part.WaitForAsync(Slow);
         Assert.Matches("^[RCM][0-9]+$", await part.InnerTextAsync());
+
+        // The comparison plots: the chart component loads plotly.js on first use and draws every trace of the legend.
+        var chart = page.Locator(".overlay-chart").First;
+        await chart.Locator(".scatterlayer .trace").First.WaitForAsync(Slow);
+        Assert.Equal(await chart.Locator(".legend-words li").CountAsync(), await chart.Locator(".scatterlayer .trace").CountAsync());
         await Browser.SaveScreenshotAsync(page, "report");
     }
 

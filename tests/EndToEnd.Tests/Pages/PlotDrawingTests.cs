@@ -11,6 +11,13 @@ namespace Patchproof.EndToEnd.Tests.Pages;
 [Collection(EndToEndCollection.Name)]
 public sealed class PlotDrawingTests(LiveServer server, Browser browser)
 {
+    private const string LoadPlotlyScript = """
+        async () => {
+          const interop = await import('./_content/Plotly.Blazor/plotly-interop-7.2.0.js');
+          await interop.importScript('plotly-import', './_content/Plotly.Blazor/plotly-3.7.0.min.js');
+        }
+        """;
+
     private const string DrawScript = """
         async () => {
           const n = 1000000, keep = 20000, h = 0.002;
@@ -46,7 +53,9 @@ public sealed class PlotDrawingTests(LiveServer server, Browser browser)
     {
         var page = await browser.NewPageAsync();
         await page.GotoAsync(server.BaseAddress.ToString());
-        await page.WaitForFunctionAsync("() => typeof Plotly !== 'undefined'", null, new PageWaitForFunctionOptions { Timeout = 60_000 });
+        await page.GetByText("Server ready").WaitForAsync(new LocatorWaitForOptions { Timeout = 60_000 });
+        // The start page leaves plotly.js out; load the copy the app ships as the chart component does, with Plotly.Blazor's loader.
+        await page.EvaluateAsync(LoadPlotlyScript);
 
         var figures = await page.EvaluateAsync<double[]>(DrawScript);
 

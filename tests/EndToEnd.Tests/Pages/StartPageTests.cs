@@ -1,6 +1,8 @@
 using System.Diagnostics;
+using System.Text.Json;
 using Microsoft.Playwright;
 using Patchproof.EndToEnd.Tests.Infrastructure;
+using Patchproof.EndToEnd.Tests.Support;
 
 namespace Patchproof.EndToEnd.Tests.Pages;
 
@@ -11,6 +13,7 @@ public sealed class StartPageTests(LiveServer server, Browser browser)
     public async Task StartPage_LoadsFromTheServer_AndReportsTheServerReady()
     {
         var page = await browser.NewPageAsync();
+        await StartPageTimeline.PrepareAsync(page);
         var stopwatch = Stopwatch.StartNew();
 
         await page.GotoAsync(server.BaseAddress.ToString());
@@ -22,6 +25,15 @@ public sealed class StartPageTests(LiveServer server, Browser browser)
         await Browser.SaveScreenshotAsync(page, "start-page");
         // Recorded for docs/performance.md, never asserted: timing belongs in measurements, not unit tests.
         await Timings.RecordAsync("start-page-ready-ms", stopwatch.ElapsedMilliseconds);
+        // The phases of the same load (artifacts/e2e/start-page-timeline.json), to see where the time goes.
+        var timeline = await StartPageTimeline.CollectAsync(page, "start-page-timeline");
+        await Timings.RecordAsync("start-page-framework-loaded-ms", timeline.GetProperty("framework").GetProperty("endMs").GetDouble());
+        await Timings.RecordAsync("start-page-first-render-ms", timeline.GetProperty("firstRenderMs").GetDouble());
+        await Timings.RecordAsync("start-page-health-answered-ms", timeline.GetProperty("health").GetProperty("endMs").GetDouble());
+
+        // plotly.js (4.6 MB) is for the plots only: the start page must neither fetch nor run it.
+        Assert.Equal(JsonValueKind.Null, timeline.GetProperty("plotlyScript").ValueKind);
+        Assert.Equal(JsonValueKind.Null, timeline.GetProperty("plotlyExecutedMs").ValueKind);
     }
 
     [Fact]
