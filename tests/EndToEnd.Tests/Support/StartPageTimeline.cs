@@ -8,8 +8,8 @@ namespace Patchproof.EndToEnd.Tests.Support;
 /// <remarks>
 /// Times are milliseconds from the start of the navigation. The script added before the page's own scripts notes
 /// when Plotly (if the page loads it) finished executing, when the first component rendered and when the page said
-/// "Server ready"; the rest comes
-/// from the Resource Timing entries. The figures are for docs/performance.md and are never asserted.
+/// "Server ready"; the rest comes from the Resource Timing entries. The figures are for docs/performance.md and are
+/// never asserted.
 /// </remarks>
 public static class StartPageTimeline
 {
@@ -59,7 +59,6 @@ public static class StartPageTimeline
             health: span(pick(p => p === '/api/health')),
             api: pick(p => p.startsWith('/api/')).map(r => ({ path: new URL(r.name).pathname, startMs: r.startTime, endMs: r.responseEnd })),
             collectedMs: performance.now(),
-            measures: performance.getEntriesByType('measure').map(m => ({ name: m.name, startMs: m.startTime, durationMs: m.duration })),
             everything: span(all),
           };
         }
