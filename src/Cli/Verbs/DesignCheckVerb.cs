@@ -39,7 +39,7 @@ internal static class DesignCheckVerb
         }
         else if (design.Model is { } reference)
         {
-            BuiltInTargets.TryFind(reference.Name, out target);
+            DesignTargets.TryFind(reference.Name, out target);
         }
 
         var report = DesignCheck.Check(design, target);

@@ -4,16 +4,18 @@ using System.Globalization;
 using Patchproof.Core.Circuits;
 using Patchproof.Core.Circuits.Building;
 using Patchproof.Core.Circuits.Files;
+using Patchproof.Core.Circuits.Targets;
 using Patchproof.Core.Simulation.Synthesis;
 
 namespace Patchproof.Cli.Verbs;
 
-/// <summary><c>patchproof design new --model NAME [--series E24] [--time-scale 1ms] [--range x=20,...] [--out F]</c>.</summary>
+/// <summary><c>patchproof design new --model NAME|--file F [--series E24] [--time-scale 1ms] [--range x=20,...] [--out F]</c>.</summary>
 internal static class DesignNewVerb
 {
     public static Command Create(CliConsole console)
     {
-        var model = new Option<string>("--model") { Description = "The model to realize: lorenz, rossler, damped-oscillator.", Required = true };
+        var model = new Option<string?>("--model") { Description = $"A built-in model to realize: {string.Join(", ", DesignTargets.Names())} (the others have terms the board's blocks cannot compute)." };
+        var file = new Option<string?>("--file") { Description = "A model file in the equation language (docs/models.md) to realize instead of --model; terms up to products of two states, constants, coefficients of one parameter each." };
         var series = new Option<string>("--series") { Description = "The resistor series: E6, E12, E24 (default), E48, E96.", DefaultValueFactory = _ => "E24" };
         var timeScale = new Option<string>("--time-scale") { Description = "Seconds per problem time unit, for example 1ms (default) or 47ms.", DefaultValueFactory = _ => "1 ms" };
         var ranges = new Option<string?>("--range") { Description = "Expected max |x| per variable in problem units, as x=20,y=27,z=48; by default found by simulating the model." };
@@ -21,18 +23,24 @@ internal static class DesignNewVerb
         var title = new Option<string?>("--title") { Description = "The board's name to write into the design." };
         var output = new Option<string?>("--out") { Description = "Write the design file here (default: print it)." };
         var command = new Command("new", "Propose a board for a model: amplitude scales, capacitors and resistors rounded to a series, with the error each rounding causes.");
-        foreach (var option in new Option[] { model, series, timeScale, ranges, board, title, output })
+        foreach (var option in new Option[] { model, file, series, timeScale, ranges, board, title, output })
         {
             command.Options.Add(option);
         }
 
-        command.SetAction(parse => Run(console, parse.GetValue(model)!, parse.GetValue(series)!, parse.GetValue(timeScale)!, parse.GetValue(ranges), parse.GetValue(board), parse.GetValue(title), parse.GetValue(output)));
+        command.SetAction(parse => Run(console, parse.GetValue(model), parse.GetValue(file), parse.GetValue(series)!, parse.GetValue(timeScale)!, parse.GetValue(ranges), parse.GetValue(board), parse.GetValue(title), parse.GetValue(output)));
         return command;
     }
 
-    private static int Run(CliConsole console, string modelName, string seriesName, string timeScaleText, string? rangeText, string? board, string? title, string? output)
+    private static int Run(CliConsole console, string? modelName, string? modelFile, string seriesName, string timeScaleText, string? rangeText, string? board, string? title, string? output)
     {
-        var target = DesignVerb.FindModel(console, modelName, "--model");
+        if ((modelName is null) == (modelFile is null))
+        {
+            console.Error.WriteLine("design new: give either --model NAME or --file F.");
+            return PatchproofCommandLine.BadInput;
+        }
+
+        var target = modelName is not null ? DesignVerb.FindModel(console, modelName, "--model") : DesignVerb.ReadModelFile(console, modelFile!);
         if (target is null)
         {
             return PatchproofCommandLine.BadInput;
@@ -51,7 +59,13 @@ internal static class DesignNewVerb
         }
 
         ImmutableDictionary<string, double> ranges;
-        if (rangeText is null)
+        if (rangeText is null && !BuiltInTargets.All.Contains(target))
+        {
+            // A target built from a model already carries the ranges of its own trajectory from its initial state.
+            ranges = target.Variables.Select((name, j) => (name, j)).ToImmutableDictionary(pair => pair.name, pair => target.TypicalRanges[pair.j], StringComparer.Ordinal);
+            console.Output.WriteLine("Ranges found by simulating the model from its initial state: " + string.Join(", ", target.Variables.Select((name, j) => $"{name} {DesignVerb.Number(target.TypicalRanges[j], "G3")}")));
+        }
+        else if (rangeText is null)
         {
             ranges = ModelRangeFinder.FindRanges(target, settle: target.Name == "damped-oscillator" ? 0 : 20);
             console.Output.WriteLine("Ranges found by simulating the model: " + string.Join(", ", ranges.OrderBy(pair => target.Variables.IndexOf(pair.Key)).Select(pair => $"{pair.Key} {DesignVerb.Number(pair.Value, "G3")}")));

@@ -127,7 +127,7 @@ internal static class DesignSimulateVerb
         }
         else
         {
-            BuiltInTargets.TryFind(design.Model?.Name, out var target);
+            DesignTargets.TryFind(design.Model?.Name, out var target);
             var system = BoardOdeSystem.Create(design, faults.NonIdealities);
             trace = BoardSimulator.Simulate(system, system.ParameterVector(deviations.ToImmutable()), system.InitialState(target), settle, interval * (settings.Samples - 1), interval);
         }

@@ -4,6 +4,7 @@ using Patchproof.Core;
 using Patchproof.Core.Circuits;
 using Patchproof.Core.Circuits.Files;
 using Patchproof.Core.Circuits.Targets;
+using Patchproof.Core.Models;
 
 namespace Patchproof.Cli.Verbs;
 
@@ -39,16 +40,71 @@ internal static class DesignVerb
         return result.Success ? result.Value : null;
     }
 
-    /// <summary>Finds a built-in model by name, printing the known names when it is unknown.</summary>
+    /// <summary>Finds a model a design can be built from by name, printing why when it is unknown or cannot be realized.</summary>
     public static TargetSystem? FindModel(CliConsole console, string name, string option)
     {
-        if (BuiltInTargets.TryFind(name, out var target))
+        if (DesignTargets.TryFind(name, out var target))
         {
             return target;
         }
 
-        console.Error.WriteLine($"{option} {name}: unknown model; known models: {string.Join(", ", BuiltInTargets.All.Select(model => model.Name))}.");
+        if (ModelTargets.FromCatalog(name) is { } refused)
+        {
+            console.Error.WriteLine($"{option} {name}: the board's blocks cannot realize this model:");
+            foreach (var refusal in refused.Refusals)
+            {
+                console.Error.WriteLine("  " + refusal);
+            }
+
+            console.Error.WriteLine($"Models a design can be generated from: {string.Join(", ", DesignTargets.Names())}.");
+            return null;
+        }
+
+        console.Error.WriteLine($"{option} {name}: unknown model; known models: {string.Join(", ", DesignTargets.Names())}.");
         return null;
+    }
+
+    /// <summary>Reads a model file of the equation language and builds its target, printing parse errors as file:line:column and refused terms; null when it cannot be used.</summary>
+    public static TargetSystem? ReadModelFile(CliConsole console, string path)
+    {
+        string text;
+        try
+        {
+            text = File.ReadAllText(path);
+        }
+        catch (Exception exception) when (exception is IOException or UnauthorizedAccessException)
+        {
+            console.Error.WriteLine($"{path}: cannot read: {exception.Message}");
+            return null;
+        }
+
+        var parsed = ModelParser.Parse(text, path);
+        foreach (var warning in parsed.Warnings)
+        {
+            console.Error.WriteLine($"{warning} (warning)");
+        }
+
+        foreach (var error in parsed.Errors)
+        {
+            console.Error.WriteLine(error);
+        }
+
+        if (!parsed.Success)
+        {
+            return null;
+        }
+
+        var result = ModelTargets.FromModel(parsed.Value, Path.GetFileNameWithoutExtension(path));
+        if (result.Target is null)
+        {
+            console.Error.WriteLine($"{path}: the board's blocks cannot realize this model:");
+            foreach (var refusal in result.Refusals)
+            {
+                console.Error.WriteLine($"  {path}:{(refusal.Line > 0 ? refusal.Line + ": " : string.Empty)}{refusal}");
+            }
+        }
+
+        return result.Target;
     }
 
     /// <summary>Splits <c>a=1,b=2</c> into pairs; false on an item without '='.</summary>

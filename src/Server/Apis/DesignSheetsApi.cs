@@ -117,7 +117,7 @@ internal static class DesignSheetsApi
         TargetSystem? target = null;
         if (design.Model is { } model)
         {
-            BuiltInTargets.TryFind(model.Name, out target);
+            DesignTargets.TryFind(model.Name, out target);
         }
 
         var report = DesignCheck.Check(design, target);

@@ -22,9 +22,12 @@ internal static class ModelsApi
         return routes;
     }
 
-    private static Ok<List<BuiltInModelResponse>> List() =>
-        TypedResults.Ok(ModelCatalog.All.Select(m => new BuiltInModelResponse(
-            m.Name, m.Title, m.Description, DesignSheets.EquationsOf(m.Name), m.Source, BuiltInTargets.TryFind(m.Name, out _))).ToList());
+    private static Ok<List<BuiltInModelResponse>> List()
+    {
+        var realizable = DesignTargets.Names().ToHashSet(StringComparer.Ordinal);
+        return TypedResults.Ok(ModelCatalog.All.Select(m => new BuiltInModelResponse(
+            m.Name, m.Title, m.Description, DesignSheets.EquationsOf(m.Name), m.Source, realizable.Contains(m.Name))).ToList());
+    }
 
     private static Results<Ok<DesignSheetDocument>, ProblemHttpResult, ValidationProblem> Generate(string modelId, double? timeScaleSeconds, string? board, string? title)
     {
@@ -33,10 +36,11 @@ internal static class ModelsApi
             return ApiProblems.NotFound("model", modelId);
         }
 
-        if (!BuiltInTargets.TryFind(modelId, out var target))
+        if (!DesignTargets.TryFind(modelId, out var target))
         {
+            var refusals = ModelTargets.FromCatalog(modelId)?.Refusals ?? [];
             return TypedResults.Problem(statusCode: StatusCodes.Status422UnprocessableEntity, title: "No design can be generated for this model",
-                detail: $"Designs can be generated for {string.Join(", ", BuiltInTargets.All.Select(t => t.Name))}; write a design file for '{modelId}' by hand (docs/circuits.md).");
+                detail: $"The board's blocks cannot realize {string.Join("; ", refusals)}. Designs can be generated for {string.Join(", ", DesignTargets.Names())}; write a design file for '{modelId}' by hand (docs/circuits.md).");
         }
 
         if (timeScaleSeconds is { } tau && !(tau > 0 && tau < 1e3))

@@ -103,7 +103,7 @@ internal static class DesignSheets
         }
 
         var model = ModelCatalog.Find(modelName);
-        var hasTarget = BuiltInTargets.TryFind(modelName, out var target);
+        var hasTarget = DesignTargets.TryFind(modelName, out var target);
         if (model is not null && (!hasTarget || model.Parse().StateNames.SequenceEqual(target.Variables)))
         {
             return model.EquationText.Split('\n')
