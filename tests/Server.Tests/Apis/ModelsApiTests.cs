@@ -45,6 +45,44 @@ public sealed class ModelsApiTests
     }
 
     [Fact]
+    public async Task ListModels_MarksEveryModelTheBoardCanRealize()
+    {
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite, new TestServerSettings { SeedDemo = false });
+
+        var models = await api.Client.GetFromJsonAsync<List<BuiltInModelResponse>>("/api/models", ApiTest.Token);
+
+        // Lotka-Volterra and Sprott's jerk system are quadratic; Chua's diode, Van der Pol's x^2*y and Duffing's x^3 and forcing are not realizable by the builder.
+        Assert.Equal(["damped-oscillator", "lorenz", "lotka-volterra", "rossler", "sprott-jerk"], models!.Where(m => m.CanGenerateDesign).Select(m => m.Id).Order(StringComparer.Ordinal));
+    }
+
+    [Theory]
+    [InlineData("lotka-volterra", 2, 2)]
+    [InlineData("sprott-jerk", 3, 1)]
+    public async Task GenerateDesign_QuadraticCatalogModel_GivesASheetWithItsIntegratorsAndMultipliers(string model, int integrators, int multipliers)
+    {
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite, new TestServerSettings { SeedDemo = false });
+
+        using var generated = await api.Client.PostAsync($"/api/models/{model}/design", null, ApiTest.Token);
+        var sheet = (await generated.Content.ReadFromJsonAsync<DesignSheetDocument>(ApiTest.Token))!;
+
+        Assert.Equal(HttpStatusCode.OK, generated.StatusCode);
+        Assert.Equal(model, sheet.ModelName);
+        Assert.Equal(integrators, sheet.Blocks.Count(b => b.Kind == "integrator"));
+        Assert.Equal(multipliers, sheet.Blocks.Count(b => b.Kind == "multiplier"));
+    }
+
+    [Fact]
+    public async Task GenerateDesign_VanDerPol_NamesTheCubicTerm()
+    {
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite, new TestServerSettings { SeedDemo = false });
+
+        using var refused = await api.Client.PostAsync("/api/models/van-der-pol/design", null, ApiTest.Token);
+
+        var problem = await ApiTest.ReadProblemAsync(refused, HttpStatusCode.UnprocessableEntity);
+        Assert.Contains("equation y' (line 5), term (-mu) * x^2*y", problem.GetProperty("detail").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task GenerateDesign_UnknownOrUnsupportedModelOrBadTimeScale_AnswersProblems()
     {
         await using var api = ApiTest.Start(ServerDatabase.Sqlite, new TestServerSettings { SeedDemo = false });
