@@ -6,22 +6,30 @@ using Patchproof.Core.Circuits.Targets;
 
 namespace Patchproof.Cli.Verbs;
 
-/// <summary><c>patchproof design check FILE [--model NAME]</c>: what a design realizes and what is wrong with it.</summary>
+/// <summary><c>patchproof design check FILE [--model NAME | --model-file F]</c>: what a design realizes and what is wrong with it.</summary>
 internal static class DesignCheckVerb
 {
     public static Command Create(CliConsole console)
     {
         var file = new Argument<string>("file") { Description = "The design file (JSON, docs/circuits.md)." };
         var model = new Option<string?>("--model") { Description = "Check against this model instead of the one the design names." };
+        var modelFile = new Option<string?>("--model-file") { Description = "Check against this model file in the equation language (docs/models.md), for a design made with design new --file." };
         var command = new Command("check", "Show the coefficients and problem parameters a design realizes, and every term or part that does not match its model.");
         command.Arguments.Add(file);
         command.Options.Add(model);
-        command.SetAction(parse => Run(console, parse.GetValue(file)!, parse.GetValue(model)));
+        command.Options.Add(modelFile);
+        command.SetAction(parse => Run(console, parse.GetValue(file)!, parse.GetValue(model), parse.GetValue(modelFile)));
         return command;
     }
 
-    private static int Run(CliConsole console, string path, string? modelName)
+    private static int Run(CliConsole console, string path, string? modelName, string? modelFile)
     {
+        if (modelName is not null && modelFile is not null)
+        {
+            console.Error.WriteLine("design check: give --model or --model-file, not both.");
+            return PatchproofCommandLine.BadInput;
+        }
+
         var design = DesignVerb.ReadDesign(console, path);
         if (design is null)
         {
@@ -29,7 +37,15 @@ internal static class DesignCheckVerb
         }
 
         TargetSystem? target = null;
-        if (modelName is not null)
+        if (modelFile is not null)
+        {
+            target = DesignVerb.ReadModelFile(console, modelFile);
+            if (target is null)
+            {
+                return PatchproofCommandLine.BadInput;
+            }
+        }
+        else if (modelName is not null)
         {
             target = DesignVerb.FindModel(console, modelName, "--model");
             if (target is null)

@@ -117,6 +117,10 @@ public sealed class DesignVerbTests
             Assert.Contains("Design for pendulum", output, StringComparison.Ordinal);
             Assert.Contains("dv/dt: x", output, StringComparison.Ordinal);
             Assert.Contains("\"name\": \"pendulum\"", File.ReadAllText(design), StringComparison.Ordinal);
+            var (checkCode, checkOutput, _) = CliRun.Invoke("design", "check", design, "--model-file", model);
+            Assert.Equal(0, checkCode);
+            Assert.Contains("checked against pendulum", checkOutput, StringComparison.Ordinal);
+            Assert.Contains("none: every model term is realized", checkOutput, StringComparison.Ordinal);
         }
         finally
         {
