@@ -21,6 +21,10 @@ public sealed record DiagnosisOptions
     /// <summary>An all-in-tolerance explanation with a p-value at least this is accepted before any part is named. Default 0.01.</summary>
     public double AcceptableHealthyPValue { get; init; } = 0.01;
 
+    /// <summary>An accepted all-in-tolerance explanation with a p-value below this fits only just: the report then notes the
+    /// likeliest deviating part beside the verdict. Default 0.1 (the usual 10 % significance level, common practice).</summary>
+    public double BorderlineHealthyPValue { get; init; } = 0.1;
+
     /// <summary>How many standard deviations the interval spans on each side (2 gives about 95 %). Default 2.</summary>
     public double IntervalSigmas { get; init; } = 2;
 

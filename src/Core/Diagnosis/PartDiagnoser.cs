@@ -69,7 +69,8 @@ public static class PartDiagnoser
             notes.Add("This capture cannot see " + string.Join(", ", unobservable) + ": no measured coefficient depends on them.");
         }
 
-        var (outcome, findings, summary) = Decide(model, problem.Columns, groups, healthy, winner, runnerUp, options, notes);
+        var likeliestDeviation = accepted.FirstOrDefault(h => h.Freed.Count > 0);
+        var (outcome, findings, summary) = Decide(model, problem.Columns, groups, healthy, winner, runnerUp, likeliestDeviation, options, notes);
         var loose = problem.Columns.Select((column, j) => (column, j))
             .Where(pair => pair.column.Kind is DiagnosisColumnKind.ChannelGain && !pair.column.PinnedByCalibration && model.IsObservable(pair.j))
             .Select(pair => pair.j).ToList();
@@ -109,6 +110,7 @@ public static class PartDiagnoser
         ScoredHypothesis healthy,
         ScoredHypothesis winner,
         ScoredHypothesis? runnerUp,
+        ScoredHypothesis? likeliestDeviation,
         DiagnosisOptions options,
         List<string> notes)
     {
@@ -126,6 +128,11 @@ public static class PartDiagnoser
             if (nearest.Count > 0)
             {
                 notes.Add("Nearest their tolerance edges: " + string.Join(", ", nearest) + ".");
+            }
+
+            if (healthy.Hypothesis.FitPValue < options.BorderlineHealthyPValue && likeliestDeviation is { } suspect)
+            {
+                notes.Add(BorderlineNote(columns, groups, healthy, suspect));
             }
 
             return (DiagnosisOutcome.WithinTolerance, [], "Every part behaves within its tolerance: the measurements fit the design as drawn.");
@@ -340,6 +347,18 @@ public static class PartDiagnoser
         {
             notes.Add("Uncalibrated probe gains can mimic " + string.Join(", ", mimicked.Select(m => m.Split(' ')[0])) + ". A calibration capture (every probe on one node) would resolve them to " + string.Join(", ", mimicked) + ".");
         }
+    }
+
+    /// <summary>Names the likeliest deviation beside a verdict of "within tolerance" that fits only just.</summary>
+    private static string BorderlineNote(IReadOnlyList<DiagnosisColumn> columns, IReadOnlyList<ColumnGroup> groups, ScoredHypothesis healthy, ScoredHypothesis suspect)
+    {
+        var parts = suspect.Freed.Select(j =>
+        {
+            var members = groups.First(group => group.Representative == j).Members.Where(m => columns[m].IsFaultCandidate).Select(m => columns[m].Id).ToList();
+            return members.Count > 1 ? string.Join(" or ", members) + " (this capture cannot tell them apart)" : members.Single();
+        });
+        return string.Create(CultureInfo.InvariantCulture,
+            $"Borderline: parts within tolerance explain the measurements only just (χ² p = {healthy.Hypothesis.FitPValue:0.###}). The likeliest deviation is {string.Join(", with ", parts)}, at probability {suspect.Hypothesis.Probability:0.##} against {healthy.Hypothesis.Probability:0.##} for no deviation. Checking it on the bench would settle it (measure a resistor or capacitor with the board powered down, as your lab's rules say).");
     }
 
     private static bool NamesOtherParts(IReadOnlyList<int> candidate, IReadOnlyList<int> winner) =>

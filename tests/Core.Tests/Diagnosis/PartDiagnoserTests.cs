@@ -90,6 +90,38 @@ public sealed class PartDiagnoserTests
     }
 
     [Fact]
+    public void Diagnose_MultiplierJustBeyondItsBand_WithinToleranceFitsOnlyJust_NotesTheLikeliestGroup()
+    {
+        // Invented rows: the multiplier 4.5 % low while C2 runs 1.5 % low, measured coarsely. Parts within tolerance can
+        // still explain that (the 2 % multiplier near its edge, with help), but only just, so the verdict stands and a
+        // note names the multiplier's group.
+        var columns = LorenzBoardColumns.Columns();
+        var w = LorenzBoardColumns.Effect(columns, ("M1", Math.Log(0.955)), ("C2", Math.Log(0.985)));
+        var problem = new DiagnosisProblem(LorenzBoardColumns.Rows(w), columns, LorenzBoardColumns.DiagonalCovariance(0.005));
+
+        var result = PartDiagnoser.Diagnose(problem);
+
+        var healthy = result.Hypotheses.Single(h => h.FreedGroups.Count == 0);
+        Assert.InRange(healthy.FitPValue, 0.01, 0.1);
+        Assert.Equal(DiagnosisOutcome.WithinTolerance, result.Outcome);
+        var note = Assert.Single(result.Notes, n => n.StartsWith("Borderline", StringComparison.Ordinal));
+        Assert.Contains("M1", note, StringComparison.Ordinal);
+        Assert.Contains("R5", note, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Diagnose_HealthyBoard_HasNoBorderlineNote()
+    {
+        var columns = LorenzBoardColumns.Columns();
+        var w = LorenzBoardColumns.Effect(columns, ("R1", 0.004), ("R3", -0.005), ("C1", 0.02), ("M1", 0.01));
+        var problem = new DiagnosisProblem(LorenzBoardColumns.Rows(w), columns, LorenzBoardColumns.DiagonalCovariance(0.002));
+
+        var result = PartDiagnoser.Diagnose(problem);
+
+        Assert.DoesNotContain(result.Notes, n => n.StartsWith("Borderline", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Diagnose_PartNoRowDependsOn_IsListedAsUnobservable()
     {
         var columns = LorenzBoardColumns.Columns().Append(DiagnosisColumn.ForPartValue("R9", "spare resistor", 10e3, "Ω", 0.01, new double[7])).ToList();
