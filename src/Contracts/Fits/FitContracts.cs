@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using Patchproof.Contracts.Captures;
 
 namespace Patchproof.Contracts.Fits;
 
@@ -29,7 +30,15 @@ public enum FitState
 /// <param name="CaptureIds">One or more captures of the same board.</param>
 /// <param name="IgnoreBenchCalibration">True to fit with every channel at the stated probe tolerance instead of the bench's
 /// newest probe calibration; optional, false (use the calibration) when left out.</param>
-public sealed record StartFitRequest(Guid BoardId, int DesignVersion, IReadOnlyList<Guid> CaptureIds, bool IgnoreBenchCalibration = false);
+/// <param name="Mapping">Which channel records which of the design's variables, with its sign; optional: left out or empty,
+/// the channels are taken in file order for the variables in equation order, all with sign +1. A variable no channel
+/// records is left out (it is fitted as a hidden state).</param>
+public sealed record StartFitRequest(
+    Guid BoardId,
+    int DesignVersion,
+    IReadOnlyList<Guid> CaptureIds,
+    bool IgnoreBenchCalibration = false,
+    IReadOnlyList<ChannelMappingEntry>? Mapping = null);
 
 /// <summary>A fit job: its state, its progress and, once done, whether a result is there.</summary>
 /// <param name="Id">The fit's identifier.</param>
@@ -47,6 +56,7 @@ public sealed record StartFitRequest(Guid BoardId, int DesignVersion, IReadOnlyL
 /// <param name="StartedAt">When a process last took it (UTC), or null.</param>
 /// <param name="FinishedAt">When it reached a final state (UTC), or null.</param>
 /// <param name="IgnoreBenchCalibration">True when the fit was asked not to use the bench's probe calibration.</param>
+/// <param name="Mapping">The channel mapping the fit was started with, or null when it was started without one (file order).</param>
 public sealed record FitResponse(
     Guid Id,
     Guid BoardId,
@@ -62,7 +72,8 @@ public sealed record FitResponse(
     DateTimeOffset CreatedAt,
     DateTimeOffset? StartedAt,
     DateTimeOffset? FinishedAt,
-    bool IgnoreBenchCalibration = false);
+    bool IgnoreBenchCalibration = false,
+    IReadOnlyList<ChannelMappingEntry>? Mapping = null);
 
 /// <summary>The result of a finished fit as the fit engine wrote it.</summary>
 /// <param name="FitId">The fit.</param>

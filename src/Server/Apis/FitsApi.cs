@@ -1,7 +1,9 @@
 using System.Text.Json;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
+using Patchproof.Contracts.Captures;
 using Patchproof.Contracts.Fits;
+using Patchproof.Core.Circuits.Files;
 using Patchproof.Server.Data;
 using Patchproof.Server.Fits;
 
@@ -62,11 +64,31 @@ internal static class FitsApi
             return ApiProblems.NotFound("design version", $"{request.BoardId}/{request.DesignVersion}");
         }
 
-        var found = await db.Captures.Where(c => captureIds.Contains(c.Id) && c.BoardId == request.BoardId).Select(c => c.Id).ToListAsync(cancellationToken);
-        var missing = captureIds.Except(found).ToList();
+        var found = await db.Captures.AsNoTracking().Where(c => captureIds.Contains(c.Id) && c.BoardId == request.BoardId)
+            .Select(c => new { c.Id, c.FileName, c.ChannelsJson }).ToListAsync(cancellationToken);
+        var missing = captureIds.Except(found.Select(c => c.Id)).ToList();
         if (missing.Count > 0)
         {
             return ApiProblems.NotFound("capture of this board", missing[0]);
+        }
+
+        var mapping = request.Mapping ?? [];
+        if (mapping.Count > 0)
+        {
+            var read = DesignFileReader.Read(design.Document, $"design version {design.Version}");
+            if (!read.TryGetValue(out var board))
+            {
+                return LocatedProblems.Unreadable("The stored design cannot be read", $"design version {design.Version}", read.Errors);
+            }
+
+            var channels = captureIds.Select(id => found.Single(c => c.Id == id))
+                .Select(c => (c.FileName, (IReadOnlyList<string>)(JsonSerializer.Deserialize<List<CaptureChannelInfo>>(c.ChannelsJson) ?? []).Select(ch => ch.Name).ToList()))
+                .ToList();
+            var errors = FitMappingRules.Check(mapping, board.Variables.Select(v => v.Name).ToList(), channels);
+            if (errors.Count > 0)
+            {
+                return ApiProblems.Invalid(errors);
+            }
         }
 
         var fit = new FitJobRecord
@@ -76,6 +98,7 @@ internal static class FitsApi
             DesignVersionId = design.Id,
             State = FitState.Queued,
             IgnoreBenchCalibration = request.IgnoreBenchCalibration,
+            MappingJson = mapping.Count > 0 ? FitMappingJson.Write(mapping) : null,
             CreatedAtUnixMs = TimeStamps.ToUnixMs(time.GetUtcNow()),
             Captures = captureIds.Select((id, position) => new FitJobCaptureRecord { CaptureId = id, Position = position }).ToList(),
         };
@@ -158,11 +181,13 @@ internal static class FitsApi
             f.CreatedAtUnixMs,
             f.StartedAtUnixMs,
             f.FinishedAtUnixMs,
-            f.IgnoreBenchCalibration));
+            f.IgnoreBenchCalibration,
+            f.MappingJson));
 
     private static FitResponse ToResponse(FitRow f) =>
         new(f.Id, f.BoardId, f.DesignVersion, f.CaptureIds, f.State, f.Progress, f.Stage, f.CancelRequested, f.Attempts, f.Error, f.HasResult,
-            TimeStamps.FromUnixMs(f.CreatedAtUnixMs), TimeStamps.FromUnixMs(f.StartedAtUnixMs), TimeStamps.FromUnixMs(f.FinishedAtUnixMs), f.IgnoreBenchCalibration);
+            TimeStamps.FromUnixMs(f.CreatedAtUnixMs), TimeStamps.FromUnixMs(f.StartedAtUnixMs), TimeStamps.FromUnixMs(f.FinishedAtUnixMs), f.IgnoreBenchCalibration,
+            FitMappingJson.Read(f.MappingJson));
 
     private sealed record FitRow(
         Guid Id,
@@ -179,5 +204,6 @@ internal static class FitsApi
         long CreatedAtUnixMs,
         long? StartedAtUnixMs,
         long? FinishedAtUnixMs,
-        bool IgnoreBenchCalibration);
+        bool IgnoreBenchCalibration,
+        string? MappingJson);
 }

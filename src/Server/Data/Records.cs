@@ -83,6 +83,9 @@ internal sealed class FitJobRecord
     public string? ResultJson { get; set; }
     public string? Error { get; set; }
     public bool IgnoreBenchCalibration { get; set; }
+
+    // The channel mapping the fit was started with (JSON, FitMappingJson); null for file order, as in fits stored before it existed.
+    public string? MappingJson { get; set; }
     public List<FitJobCaptureRecord> Captures { get; set; } = [];
 }
 

@@ -10,7 +10,9 @@ namespace Patchproof.Server.Fits;
 /// <summary>The fit engine: reads the design and the stored capture with the core's readers and runs <see cref="BoardFitter"/>.</summary>
 /// <remarks>
 /// The core fits one capture at a time; a fit of several captures fits the first and says so in the result's notes.
-/// The channels are taken in file order for the design's variables (sign +1), as the core does when no mapping is given.
+/// The channels are mapped as the fit was started (<see cref="FitJobInput.Mapping"/>, checked by the API against the design
+/// and the captures); a fit started without a mapping, or stored before mappings were kept, takes the channels in file order
+/// for the design's variables (sign +1), as the core does when no mapping is given. The result's run lists the mapping fitted.
 /// Progress is the core's: its stages, one report per Levenberg-Marquardt iteration and one per finished comparison part,
 /// never decreasing; a cancel request stops the fit between iterations or inside the comparison. When the board's bench has a probe calibration (docs/probe-calibration.md), the newest one
 /// sets the probe gains, and the result's notes say so; a fit started with <see cref="FitJobInput.IgnoreBenchCalibration"/>
@@ -58,6 +60,7 @@ internal sealed class BoardFitJobExecutor(TimeProvider clock, ProbeCalibrationSt
             Cancellation = cancellationToken,
             Progress = new StageProgress(progress),
             Calibration = calibration?.Calibration,
+            Mapping = (input.Mapping ?? []).Select(m => new ChannelAssignment(m.Channel, m.Variable, m.Sign)).ToList(),
         };
         var fitted = BoardFitter.Fit(board, capture, options, clock);
         if (!fitted.TryGetValue(out var report))

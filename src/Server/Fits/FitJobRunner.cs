@@ -171,7 +171,8 @@ internal sealed partial class FitJobRunner(
         }
 
         var benchId = await db.Boards.AsNoTracking().Where(b => b.Id == job.BoardId).Select(b => (Guid?)b.BenchId).SingleOrDefaultAsync(cancellationToken);
-        return new FitJobInput(job.Id, job.BoardId, job.DesignVersion.Version, job.DesignVersion.Document, captures, claim.Attempt, benchId, job.IgnoreBenchCalibration);
+        return new FitJobInput(job.Id, job.BoardId, job.DesignVersion.Version, job.DesignVersion.Document, captures, claim.Attempt, benchId, job.IgnoreBenchCalibration,
+            FitMappingJson.Read(job.MappingJson));
     }
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Fit jobs are not run by this process (no fit engine registered, or Patchproof:Fits:Workers is 0).")]

@@ -1,4 +1,5 @@
 using System.Text.Json;
+using Patchproof.Contracts.Captures;
 
 namespace Patchproof.Server.Fits;
 
@@ -24,7 +25,17 @@ internal interface IFitJobExecutor
 /// <param name="Attempt">1 on the first run; higher when a previous process stopped mid-fit.</param>
 /// <param name="BenchId">The board's bench, whose newest probe calibration the fit uses; null when unknown.</param>
 /// <param name="IgnoreBenchCalibration">True when the fit was asked to keep every channel at the probe tolerance instead.</param>
-internal sealed record FitJobInput(Guid FitId, Guid BoardId, int DesignVersion, string DesignDocument, IReadOnlyList<FitJobCapture> Captures, int Attempt, Guid? BenchId = null, bool IgnoreBenchCalibration = false);
+/// <param name="Mapping">Which channel records which variable, with its sign; null or empty for file order (sign +1).</param>
+internal sealed record FitJobInput(
+    Guid FitId,
+    Guid BoardId,
+    int DesignVersion,
+    string DesignDocument,
+    IReadOnlyList<FitJobCapture> Captures,
+    int Attempt,
+    Guid? BenchId = null,
+    bool IgnoreBenchCalibration = false,
+    IReadOnlyList<ChannelMappingEntry>? Mapping = null);
 
 /// <summary>A capture as a fit sees it: the file as received and the parsed samples beside it.</summary>
 /// <param name="CaptureId">The capture.</param>

@@ -121,6 +121,26 @@ public sealed class BoardFitJobExecutorTests : IDisposable
         Assert.False(done.HasResult);
     }
 
+    [Fact]
+    public async Task Execute_TernWithTheMappingItWasRecordedWith_ConvergesAndListsThatMapping()
+    {
+        // The demo capture of QH-L5 records x on CH1 and z on CH2 (y is not recorded); file order would read CH2 as y.
+        var capture = File.ReadAllBytes(Path.Combine(Patchproof.TestSupport.ReferenceDataFiles.RepositoryRoot, "sample-captures", "qh-l5-tern.csv"));
+        var input = Input("qh-l5-tern.json", capture) with { Mapping = [new("CH1", "x", 1), new("CH2", "z", 1)] };
+
+        var outcome = await Executor().ExecuteAsync(input, new ImmediateProgress<FitJobProgress>(_ => { }), TestContext.Current.CancellationToken);
+
+        Assert.Null(outcome.Error);
+        var document = FitResultJson.TryRead(outcome.Result!.Value);
+        Assert.NotNull(document);
+        Assert.True(document.Fitted.Converged, document.Fitted.ExitReason);
+        Assert.Equal(["CH1 = x", "CH2 = z"], document.Fitted.Mapping);
+        // The scenario's C3 came in about 15 % low, so the z integrator's gain (1/RC) is about 1/0.85 = 1.18 of nominal
+        // on its recorded term; a channel read as the wrong variable would not give that (demo data, not a reference value).
+        var beta = Assert.Single(document.Coefficients, c => c.Equation == "dz/dt" && c.Term == "z");
+        Assert.InRange(beta.ProblemEstimate / beta.ProblemNominal, 1.10, 1.26);
+    }
+
     private static BoardFitJobExecutor Executor() => new(new FakeTimeProvider(new DateTimeOffset(2026, 12, 1, 12, 0, 0, TimeSpan.Zero)));
 
     private FitJobInput Input(string designFile, params byte[][] captures)

@@ -126,6 +126,7 @@ namespace Patchproof.Server.Data.Migrations
                     b.Property<long?>("LeaseExpiresAtUnixMs");
                     b.Property<string>("LeaseOwner");
                     b.Property<Guid?>("LeaseToken");
+                    b.Property<string>("MappingJson");
                     b.Property<double>("Progress");
                     b.Property<string>("ResultJson");
                     b.Property<string>("Stage");
