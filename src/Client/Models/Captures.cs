@@ -84,6 +84,9 @@ public sealed record ChannelMapping(string Channel, string Variable, int Sign)
 {
     /// <summary>"ch1 = -y", how a mapping reads on screen.</summary>
     public string ToText() => string.IsNullOrEmpty(Variable) ? $"{Channel} unused" : $"{Channel} = {(Sign < 0 ? "-" : "+")}{Variable}";
+
+    /// <summary>True when the channel carries a variable.</summary>
+    public bool IsUsed => !string.IsNullOrEmpty(Variable);
 }
 
 /// <summary>What the mapping check found: whether the person's mapping is the one that fits best.</summary>

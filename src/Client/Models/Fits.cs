@@ -49,6 +49,9 @@ public sealed record FitJob(
     /// <summary>True when the fit was asked not to use the bench's probe calibration.</summary>
     public bool IgnoresBenchCalibration { get; init; }
 
+    /// <summary>The channel mapping the fit was started with, or null when it was started without one (file order).</summary>
+    public IReadOnlyList<ChannelMapping>? Mapping { get; init; }
+
     /// <summary>True while the fit can still change: queued or running.</summary>
     public bool IsActive => State is FitJobState.Queued or FitJobState.Running;
 }

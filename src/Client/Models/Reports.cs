@@ -115,4 +115,7 @@ public sealed record FitReportView(
 
     /// <summary>The gain the fit assumed for each channel and where it came from; empty in reports of older engines.</summary>
     public IReadOnlyList<ChannelGainView> Channels { get; init; } = [];
+
+    /// <summary>Which channel the fit read as which variable, for example "CH2 = -y"; empty in reports that do not say.</summary>
+    public IReadOnlyList<string> Mapping { get; init; } = [];
 }

@@ -76,8 +76,15 @@ public interface IPatchproofApi
     /// <param name="designVersion">The design version to fit.</param>
     /// <param name="captureIds">The captures to fit.</param>
     /// <param name="ignoreBenchCalibration">True to fit with every channel at the probe tolerance instead of the bench's newest probe calibration.</param>
+    /// <param name="mapping">Which channel shows which variable, with its sign; channels marked unused are left out. Null or empty: the server takes the file order.</param>
     /// <param name="cancellationToken">Stops the call.</param>
-    Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, bool ignoreBenchCalibration = false, CancellationToken cancellationToken = default);
+    Task<ApiResult<FitJob>> StartFitAsync(
+        Guid boardId,
+        int designVersion,
+        IReadOnlyList<Guid> captureIds,
+        bool ignoreBenchCalibration = false,
+        IReadOnlyList<ChannelMapping>? mapping = null,
+        CancellationToken cancellationToken = default);
 
     /// <summary>Reads a fit's state and progress.</summary>
     Task<ApiResult<FitJob>> GetFitAsync(Guid fitId, CancellationToken cancellationToken = default);

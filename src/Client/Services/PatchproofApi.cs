@@ -7,6 +7,7 @@ using Patchproof.Client.Services.Wire;
 using Patchproof.Contracts.Benches;
 using Patchproof.Contracts.Fits;
 using Patchproof.Contracts.Health;
+using ChannelMappingEntry = Patchproof.Contracts.Captures.ChannelMappingEntry;
 
 namespace Patchproof.Client.Services;
 
@@ -125,8 +126,20 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
         GetListAsync<FitResponse, FitJob>($"api/boards/{boardId}/fits", w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
-    public Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, bool ignoreBenchCalibration = false, CancellationToken cancellationToken = default) =>
-        SendAsync<FitResponse, FitJob>(() => PostJson("api/fits", new StartFitRequest(boardId, designVersion, captureIds, ignoreBenchCalibration)), w => w.ToView(), cancellationToken);
+    public Task<ApiResult<FitJob>> StartFitAsync(
+        Guid boardId,
+        int designVersion,
+        IReadOnlyList<Guid> captureIds,
+        bool ignoreBenchCalibration = false,
+        IReadOnlyList<ChannelMapping>? mapping = null,
+        CancellationToken cancellationToken = default)
+    {
+        var used = (mapping ?? []).Where(m => m.IsUsed).Select(m => new ChannelMappingEntry(m.Channel, m.Variable, m.Sign)).ToList();
+        return SendAsync<FitResponse, FitJob>(
+            () => PostJson("api/fits", new StartFitRequest(boardId, designVersion, captureIds, ignoreBenchCalibration, used.Count > 0 ? used : null)),
+            w => w.ToView(),
+            cancellationToken);
+    }
 
     /// <inheritdoc />
     public Task<ApiResult<FitJob>> GetFitAsync(Guid fitId, CancellationToken cancellationToken = default) =>
@@ -160,6 +173,7 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
             Warnings = s.Warnings,
             Notes = s.Notes,
             Channels = s.Channels,
+            Mapping = s.Mapping,
         });
     }
 

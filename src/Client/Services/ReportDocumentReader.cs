@@ -47,6 +47,9 @@ public static class ReportDocumentReader
 
         /// <summary>The gain the fit assumed for each channel and where it came from.</summary>
         public IReadOnlyList<ChannelGainView> Channels { get; init; } = [];
+
+        /// <summary>Which channel the fit read as which variable, for example "CH2 = -y"; empty when the document does not say.</summary>
+        public IReadOnlyList<string> Mapping { get; init; } = [];
     }
 
     private sealed record Document(
@@ -60,7 +63,10 @@ public static class ReportDocumentReader
         PlotsDocument? Plots,
         List<string>? Warnings,
         List<string>? Notes,
-        List<ChannelGainView>? Channels = null);
+        List<ChannelGainView>? Channels = null,
+        FittedDocument? Fitted = null);
+
+    private sealed record FittedDocument(List<string>? Mapping);
 
     private sealed record PlotsDocument(
         List<OverlayPlot>? PhasePlanes,
@@ -110,6 +116,7 @@ public static class ReportDocumentReader
             Warnings = document.Warnings ?? [],
             Notes = document.Notes ?? [],
             Channels = document.Channels ?? [],
+            Mapping = document.Fitted?.Mapping ?? [],
         });
     }
 }

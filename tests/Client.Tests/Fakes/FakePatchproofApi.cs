@@ -22,6 +22,8 @@ internal sealed class FakePatchproofApi : IPatchproofApi
 
     public bool? LastFitIgnoredBenchCalibration { get; private set; }
 
+    public IReadOnlyList<ChannelMapping>? LastFitMapping { get; private set; }
+
     public Task<ApiResult<IReadOnlyList<BoardSummary>>> Boards { get; set; } = NotSet<IReadOnlyList<BoardSummary>>();
 
     public Func<NewBoard, Task<ApiResult<BoardSummary>>> CreateBoard { get; set; } = _ => NotSet<BoardSummary>();
@@ -108,9 +110,16 @@ internal sealed class FakePatchproofApi : IPatchproofApi
 
     public Task<ApiResult<IReadOnlyList<FitJob>>> ListFitsAsync(Guid boardId, CancellationToken cancellationToken = default) => Fits;
 
-    public Task<ApiResult<FitJob>> StartFitAsync(Guid boardId, int designVersion, IReadOnlyList<Guid> captureIds, bool ignoreBenchCalibration = false, CancellationToken cancellationToken = default)
+    public Task<ApiResult<FitJob>> StartFitAsync(
+        Guid boardId,
+        int designVersion,
+        IReadOnlyList<Guid> captureIds,
+        bool ignoreBenchCalibration = false,
+        IReadOnlyList<ChannelMapping>? mapping = null,
+        CancellationToken cancellationToken = default)
     {
         LastFitIgnoredBenchCalibration = ignoreBenchCalibration;
+        LastFitMapping = mapping;
         return StartFit(designVersion, captureIds);
     }
 

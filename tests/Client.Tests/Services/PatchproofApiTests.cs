@@ -3,6 +3,7 @@ using System.Text;
 using System.Text.Json;
 using Patchproof.Client.Models;
 using Patchproof.Client.Services;
+using Patchproof.Contracts.Captures;
 using Patchproof.Contracts.Fits;
 
 namespace Patchproof.Client.Tests.Services;
@@ -48,10 +49,43 @@ public sealed class PatchproofApiTests
         Assert.Equal("Running", document.RootElement.GetProperty("state").GetString());
     }
 
-    /// <summary>Answers every request with 200 and the given JSON body.</summary>
+    [Fact]
+    public async Task StartFitAsync_WithAMapping_SendsTheUsedChannelsAndReadsTheMappingBack()
+    {
+        ChannelMappingEntry[] stored = [new("CH1", "x", 1), new("CH2", "z", -1)];
+        var answer = new FitResponse(FitId, BoardId, 1, [CaptureId], FitState.Queued, 0, null, false, 0, null, false, At, null, null, Mapping: stored);
+        var handler = new AnswerWith(JsonSerializer.Serialize(answer, JsonSerializerOptions.Web));
+        var api = new PatchproofApi(new HttpClient(handler) { BaseAddress = new Uri("http://localhost/") });
+
+        var started = await api.StartFitAsync(BoardId, 1, [CaptureId], mapping: [new("CH1", "x", 1), new("CH2", "z", -1), new("CH3", "", 1)], cancellationToken: TestContext.Current.CancellationToken);
+
+        var sent = JsonSerializer.Deserialize<StartFitRequest>(handler.LastBody!, JsonSerializerOptions.Web)!;
+        Assert.Equal(stored, sent.Mapping);
+        Assert.Equal([new ChannelMapping("CH1", "x", 1), new ChannelMapping("CH2", "z", -1)], started.Value.Mapping);
+    }
+
+    [Fact]
+    public async Task StartFitAsync_WithoutAMapping_LeavesTheFieldForTheServersFileOrder()
+    {
+        var answer = new FitResponse(FitId, BoardId, 1, [CaptureId], FitState.Queued, 0, null, false, 0, null, false, At, null, null);
+        var handler = new AnswerWith(JsonSerializer.Serialize(answer, JsonSerializerOptions.Web));
+        var api = new PatchproofApi(new HttpClient(handler) { BaseAddress = new Uri("http://localhost/") });
+
+        var started = await api.StartFitAsync(BoardId, 1, [CaptureId], mapping: [new("CH1", "", 1)], cancellationToken: TestContext.Current.CancellationToken);
+
+        Assert.Null(JsonSerializer.Deserialize<StartFitRequest>(handler.LastBody!, JsonSerializerOptions.Web)!.Mapping);
+        Assert.Null(started.Value.Mapping);
+    }
+
+    /// <summary>Answers every request with 200 and the given JSON body, and keeps the last request's body.</summary>
     private sealed class AnswerWith(string json) : HttpMessageHandler
     {
-        protected override Task<HttpResponseMessage> SendAsync(HttpRequestMessage request, CancellationToken cancellationToken) =>
-            Task.FromResult(new HttpResponseMessage(HttpStatusCode.OK) { Content = new StringContent(json, Encoding.UTF8, "application/json") });
+        public string? LastBody { get; private set; }
+
+        protected override async Task<HttpResponseMessage> SendAsync(HttpRequestMessage request, CancellationToken cancellationToken)
+        {
+            LastBody = request.Content is null ? null : await request.Content.ReadAsStringAsync(cancellationToken);
+            return new HttpResponseMessage(HttpStatusCode.OK) { Content = new StringContent(json, Encoding.UTF8, "application/json") };
+        }
     }
 }

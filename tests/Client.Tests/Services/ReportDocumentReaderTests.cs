@@ -41,6 +41,18 @@ public sealed class ReportDocumentReaderTests
     }
 
     [Fact]
+    public void Read_FittedMapping_KeepsItAndAnOlderDocumentHasNone()
+    {
+        using var json = JsonDocument.Parse("""
+            { "summary": "ok", "fitted": { "captureFileName": "tern.csv", "mapping": [ "CH1 = x", "CH2 = z" ], "converged": true } }
+            """);
+        using var older = JsonDocument.Parse(Document);
+
+        Assert.Equal(["CH1 = x", "CH2 = z"], ReportDocumentReader.Read(json.RootElement).Value.Mapping);
+        Assert.Empty(ReportDocumentReader.Read(older.RootElement).Value.Mapping);
+    }
+
+    [Fact]
     public void Read_FullDocument_ReadsEverySection()
     {
         using var json = JsonDocument.Parse(Document);

@@ -23,6 +23,7 @@ internal static class WireMapping
         w.HasResult, w.CreatedAt, w.FinishedAt)
     {
         IgnoresBenchCalibration = w.IgnoreBenchCalibration,
+        Mapping = w.Mapping?.Select(m => new ChannelMapping(m.Channel, m.Variable, m.Sign < 0 ? -1 : 1)).ToList(),
     };
 
     public static ProbeCalibrationView ToView(this ProbeCalibrationSummary w)

@@ -166,4 +166,62 @@ public sealed class BoardPageTests : BunitContext
 
         cut.WaitForAssertion(() => Assert.Contains("no probe calibration: every channel is taken at the stated probe tolerance", cut.Find(".calibration-status").TextContent, StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void StartFit_ChannelsRemapped_SendsTheMappingAsEdited()
+    {
+        // Two channels for three variables, as on QH-L5: CH1 shows x, CH2 shows z inverted, y is not recorded.
+        var twoChannels = DemoData.Capture() with { ChannelNames = ["CH1", "CH2"] };
+        GiveHistory([new DesignVersionEntry(1, null, DemoData.At)], [twoChannels], []);
+        api.Design = _ => FakePatchproofApi.Ok(DemoData.LorenzDesign);
+        api.StartFit = (_, _) => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Queued));
+        var cut = RenderPage();
+        cut.WaitForAssertion(() => cut.Find("select[aria-label='Variable shown by CH2']"));
+        Assert.Equal("y", cut.Find("select[aria-label='Variable shown by CH2']").GetAttribute("value"));
+
+        cut.Find("select[aria-label='Variable shown by CH2']").Change("z");
+        cut.Find("select[aria-label='Sign of CH2']").Change("-1");
+        cut.Find(".start-fit form").Submit();
+
+        Assert.Equal([new ChannelMapping("CH1", "x", 1), new ChannelMapping("CH2", "z", -1)], api.LastFitMapping);
+        Assert.Contains("Not on any channel: y.", cut.Find(".mapping .unrecorded").TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void StartFit_MappingLeftAsShown_SendsTheFileOrder()
+    {
+        GiveHistory([new DesignVersionEntry(1, null, DemoData.At)], [DemoData.Capture()], []);
+        api.Design = _ => FakePatchproofApi.Ok(DemoData.LorenzDesign);
+        api.StartFit = (_, _) => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Queued));
+        var cut = RenderPage();
+        cut.WaitForAssertion(() => cut.Find(".start-fit .mapping table"));
+
+        cut.Find(".start-fit form").Submit();
+
+        Assert.Equal([new ChannelMapping("CH1", "x", 1), new ChannelMapping("CH2", "y", 1), new ChannelMapping("CH3", "z", 1)], api.LastFitMapping);
+    }
+
+    [Fact]
+    public void StartFit_DesignVariablesUnreadable_SaysTheFileOrderIsUsedAndSendsNoMapping()
+    {
+        GiveHistory([new DesignVersionEntry(1, null, DemoData.At)], [DemoData.Capture()], []);
+        api.StartFit = (_, _) => FakePatchproofApi.Ok(DemoData.FitJob(FitJobState.Queued));
+        var cut = RenderPage();
+        cut.WaitForAssertion(() => Assert.Contains("file order", cut.Find(".start-fit .mapping-scope").TextContent, StringComparison.Ordinal));
+
+        cut.Find(".start-fit form").Submit();
+
+        Assert.Null(api.LastFitMapping);
+    }
+
+    [Fact]
+    public void Render_FitStartedWithAMapping_ListsIt()
+    {
+        var fit = DemoData.FitJob(FitJobState.Succeeded) with { Mapping = [new("CH1", "x", 1), new("CH2", "z", -1)] };
+        GiveHistory([new DesignVersionEntry(1, null, DemoData.At)], [DemoData.Capture()], [fit]);
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Contains("CH1 = +x, CH2 = -z", cut.Find("#fits-heading + .timeline").TextContent, StringComparison.Ordinal));
+    }
 }

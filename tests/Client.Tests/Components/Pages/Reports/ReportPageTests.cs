@@ -30,6 +30,16 @@ public sealed class ReportPageTests : BunitContext
     }
 
     [Fact]
+    public void Render_WithTheMappingFitted_SaysWhichChannelWasWhichVariable()
+    {
+        api.Report = FakePatchproofApi.Ok(DemoData.Report with { Mapping = ["CH1 = x", "CH2 = -z"] });
+
+        var cut = RenderPage();
+
+        cut.WaitForAssertion(() => Assert.Equal("Channels fitted: CH1 = x, CH2 = -z.", cut.Find(".fitted-mapping").TextContent));
+    }
+
+    [Fact]
     public void Render_NotFinished_ShowsTheServersReason()
     {
         api.Report = FakePatchproofApi.Problem<FitReportView>(409, "No report", "The fit is Running; only a fit that succeeded has a report.");
