@@ -389,14 +389,12 @@ public sealed class DormandPrince45Stepper
 
         // Stages 6 and 7 sit at c = 1: use newTime itself so no stage is evaluated past the end time.
         EvaluateRightHandSide(newTime, stage, k6);
-        var sum = 0.0;
         for (var i = 0; i < n; i++)
         {
             var value = Unsafe.Add(ref y0, i)
                 + (h * ((B1 * Unsafe.Add(ref f1, i)) + (B3 * Unsafe.Add(ref f3, i)) + (B4 * Unsafe.Add(ref f4, i))
                     + (B5 * Unsafe.Add(ref f5, i)) + (B6 * Unsafe.Add(ref f6, i))));
             Unsafe.Add(ref y1, i) = value;
-            sum += value;
         }
 
         EvaluateRightHandSide(newTime, yNew, k7);
@@ -405,16 +403,19 @@ public sealed class DormandPrince45Stepper
             var seventh = Unsafe.Add(ref f7, i);
             Unsafe.Add(ref err, i) = h * ((E1 * Unsafe.Add(ref f1, i)) + (E3 * Unsafe.Add(ref f3, i)) + (E4 * Unsafe.Add(ref f4, i))
                 + (E5 * Unsafe.Add(ref f5, i)) + (E6 * Unsafe.Add(ref f6, i)) + (E7 * seventh));
-            sum += seventh;
-        }
-
-        if (!double.IsFinite(sum))
-        {
-            return double.NaN;
         }
 
         var normSquared = ScaledErrorNorm.MeanSquare(error, y, yNew, absoluteTolerances, relativeTolerance);
-        return double.IsFinite(normSquared) ? normSquared : double.NaN;
+
+        // A NaN or infinity in the new vector or its derivative makes this sum non-finite. Summed here rather than
+        // inside the stage loops, where the extra running value cost a register and a spill in every stage.
+        var sum = 0.0;
+        for (var i = 0; i < n; i++)
+        {
+            sum += Unsafe.Add(ref y1, i) + Unsafe.Add(ref f7, i);
+        }
+
+        return double.IsFinite(normSquared) && double.IsFinite(sum) ? normSquared : double.NaN;
     }
 
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
