@@ -44,15 +44,31 @@ public sealed record Capture
     public CaptureChannel? FindChannel(string nameOrPosition)
     {
         ArgumentNullException.ThrowIfNull(nameOrPosition);
-        var byName = Channels.FirstOrDefault(c => string.Equals(c.Name, nameOrPosition.Trim(), StringComparison.OrdinalIgnoreCase));
-        if (byName is not null)
+        var index = IndexOfChannel(Channels.Select(c => c.Name).ToList(), nameOrPosition);
+        return index < 0 ? null : Channels[index];
+    }
+
+    /// <summary>Where <paramref name="nameOrPosition"/> stands among <paramref name="channelNames"/>, by the rule of
+    /// <see cref="FindChannel"/>: the name without regard to case, else a 1-based position.</summary>
+    /// <param name="channelNames">The channel names in file order.</param>
+    /// <param name="nameOrPosition">A channel name (<c>CH2</c>) or position (<c>2</c>).</param>
+    /// <returns>The 0-based index, or -1 when no channel matches.</returns>
+    public static int IndexOfChannel(IReadOnlyList<string> channelNames, string nameOrPosition)
+    {
+        ArgumentNullException.ThrowIfNull(channelNames);
+        ArgumentNullException.ThrowIfNull(nameOrPosition);
+        var name = nameOrPosition.Trim();
+        for (var i = 0; i < channelNames.Count; i++)
         {
-            return byName;
+            if (string.Equals(channelNames[i], name, StringComparison.OrdinalIgnoreCase))
+            {
+                return i;
+            }
         }
 
         return int.TryParse(nameOrPosition, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var position)
-            && position >= 1 && position <= Channels.Count
-            ? Channels[position - 1]
-            : null;
+            && position >= 1 && position <= channelNames.Count
+            ? position - 1
+            : -1;
     }
 }

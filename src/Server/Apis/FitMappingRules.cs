@@ -1,5 +1,6 @@
 using System.Globalization;
 using Patchproof.Contracts.Captures;
+using Patchproof.Core.Captures;
 
 namespace Patchproof.Server.Apis;
 
@@ -71,20 +72,5 @@ internal static class FitMappingRules
         return errors;
     }
 
-    // The core's rule (Capture.FindChannel): the name without regard to case, else a 1-based position.
-    private static int Find(IReadOnlyList<string> channels, string nameOrPosition)
-    {
-        var name = nameOrPosition.Trim();
-        for (var i = 0; i < channels.Count; i++)
-        {
-            if (string.Equals(channels[i], name, StringComparison.OrdinalIgnoreCase))
-            {
-                return i;
-            }
-        }
-
-        return int.TryParse(nameOrPosition, NumberStyles.None, CultureInfo.InvariantCulture, out var position) && position >= 1 && position <= channels.Count
-            ? position - 1
-            : -1;
-    }
+    private static int Find(IReadOnlyList<string> channels, string nameOrPosition) => Capture.IndexOfChannel(channels, nameOrPosition);
 }

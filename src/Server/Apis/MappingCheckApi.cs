@@ -52,25 +52,9 @@ internal static class MappingCheckApi
         var samples = await Task.Run(() => CaptureSamplesFile.Read(samplesPath, capture.FileName), cancellationToken);
         var variables = board.Variables.Select(v => v.Name).ToList();
         var mapping = request.Mapping ?? [];
-        var errors = new Dictionary<string, string[]>();
-        for (var i = 0; i < mapping.Count; i++)
-        {
-            var entry = mapping[i];
-            if (entry is null || samples.FindChannel(entry.Channel ?? string.Empty) is null)
-            {
-                errors[$"mapping[{i}].channel"] = [$"The capture has no channel '{entry?.Channel}' (it has {string.Join(", ", samples.Channels.Select(c => c.Name))})."];
-            }
-            else if (!variables.Contains(entry.Variable ?? string.Empty))
-            {
-                errors[$"mapping[{i}].variable"] = [$"The design has no variable '{entry.Variable}' (it has {string.Join(", ", variables)})."];
-            }
-            else if (entry.Sign is not (1 or -1))
-            {
-                errors[$"mapping[{i}].sign"] = ["The sign is 1 or -1."];
-            }
-        }
-
-        if (errors.Count == 0 && (mapping.Count != variables.Count || mapping.Select(m => m.Variable).Distinct().Count() != mapping.Count || mapping.Select(m => m.Channel).Distinct().Count() != mapping.Count))
+        // The fit's own rules for each entry (channel, variable, sign, nothing mapped twice); the check adds that every variable is recorded.
+        var errors = FitMappingRules.Check(mapping, variables, [(capture.FileName, samples.Channels.Select(c => c.Name).ToList())]);
+        if (errors.Count == 0 && mapping.Count != variables.Count)
         {
             errors["mapping"] = [$"The check needs each of the design's {variables.Count} variables ({string.Join(", ", variables)}) on a channel of its own."];
         }
