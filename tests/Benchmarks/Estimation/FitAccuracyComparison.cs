@@ -1,5 +1,4 @@
 using System.Globalization;
-using Patchproof.Core.Estimation;
 using Patchproof.Core.Estimation.MultipleShooting;
 using Patchproof.Core.Models.Library;
 
@@ -45,10 +44,8 @@ internal static class FitAccuracyComparison
 
     private static MultipleShootingResult FitTied(double[][] channels)
     {
-        var start = EquationErrorStart.TryEstimate(WholeFitBenchmarks.Field(), channels, Interval, new EquationErrorOptions { MaxWindowDuration = 0.05, BatchDuration = 1 })
-            ?? throw new InvalidOperationException("the equation-error start failed");
-        var p = start.Parameters;
-        var shootingChannels = channels.Select((samples, j) => new ShootingChannel($"CH{j + 1}", j, 1, WholeFitBenchmarks.NoiseSd(samples), samples)).ToList();
+        var p = WholeFitBenchmarks.Start(channels).Parameters;
+        var shootingChannels = WholeFitBenchmarks.ShootingChannels(channels);
         var options = new MultipleShootingOptions { SegmentSeconds = 0.5, EstimateChannelOffsets = false };
         options = options with { Solver = options.Solver with { InitialDamping = MultipleShootingOptions.NearStartDamping } };
         return MultipleShootingEstimator.Fit(new LorenzSystem(), [p[0], p[2], -p[6]], shootingChannels, 0, Interval, options);

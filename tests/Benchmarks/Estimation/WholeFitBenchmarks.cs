@@ -56,16 +56,23 @@ public class WholeFitBenchmarks
         var ranking = ChannelMappingSearch.Rank(channels, Interval, LorenzTerms, NominalByEquation);
         Mark("mapping check");
         var field = Field();
-        var options = new EquationErrorOptions { MaxWindowDuration = 0.05, BatchDuration = 1 };
-        var start = EquationErrorStart.TryEstimate(field, channels, Interval, options)
-            ?? throw new InvalidOperationException("the equation-error start failed");
+        var start = Start(channels);
         Mark("equation-error start");
-        var shootingChannels = channels.Select((samples, j) => new ShootingChannel($"CH{j + 1}", j, 1, NoiseSd(samples), samples)).ToList();
+        var shootingChannels = ShootingChannels(channels);
         var fit = MultipleShootingEstimator.Fit(field, start.Parameters, shootingChannels, 0, Interval, Options(), null,
             shootingChannels.Select(c => start.StateOffsets[c.StateIndex]).ToList());
         Mark("multiple shooting and uncertainty");
         return new WholeFitResult(ranking[0], fit);
     }
+
+    /// <summary>The equation-error start on the Lorenz field of <see cref="Field"/>.</summary>
+    internal static EquationErrorStartResult Start(double[][] channels) =>
+        EquationErrorStart.TryEstimate(Field(), channels, Interval, new EquationErrorOptions { MaxWindowDuration = 0.05, BatchDuration = 1 })
+            ?? throw new InvalidOperationException("the equation-error start failed");
+
+    /// <summary>One shooting channel a state, gain 1, with its noise floor.</summary>
+    internal static List<ShootingChannel> ShootingChannels(double[][] channels) =>
+        channels.Select((samples, j) => new ShootingChannel($"CH{j + 1}", j, 1, NoiseSd(samples), samples)).ToList();
 
     private static MultipleShootingOptions Options()
     {
@@ -104,7 +111,7 @@ public class WholeFitBenchmarks
         File.Exists("/proc/loadavg") ? File.ReadAllText("/proc/loadavg").Split(' ')[0] : "?";
 
     /// <summary>Noise sd from the median absolute second difference, floored by the quantization step / √12.</summary>
-    internal static double NoiseSd(double[] samples)
+    private static double NoiseSd(double[] samples)
     {
         var differences = new double[samples.Length - 2];
         for (var i = 1; i + 1 < samples.Length; i++)
