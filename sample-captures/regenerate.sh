@@ -18,7 +18,7 @@ run designs/qh-l5-tern.json --faults C3=-15% --part-spread 0.5 --seed 13 --t-end
 # QH-R1 Gannet: Rössler board whose multiplier scale factor runs 4 % low, recorded with probes that are off by up to
 # 1.5 %; the second file is the bench's probe calibration: all three probes on the x integrator's output.
 gannet_probes="CH1=+1.2%,CH2=-0.6%,CH3=-1.5%"
-run designs/qh-r1-gannet.json --faults M1=-4% --part-spread 0.5 --seed 14 --t-end 120ms --style units-row \
+run designs/qh-r1-gannet.json --faults M1=-4% --part-spread 0.5 --seed 48 --t-end 120ms --style units-row \
   --probe-gains "$gannet_probes" --out sample-captures/qh-r1-gannet.csv
 run designs/qh-r1-gannet.json --faults M1=-4% --part-spread 0.5 --seed 24 --t-end 20ms --style units-row \
   --channels CH1=x,CH2=x,CH3=x --probe-gains "$gannet_probes" --out sample-captures/qh-r1-gannet-probe-calibration.csv
