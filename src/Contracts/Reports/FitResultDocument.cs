@@ -8,7 +8,7 @@ namespace Patchproof.Contracts.Reports;
 /// <param name="Version">The document's version, <see cref="CurrentVersion"/>.</param>
 /// <param name="Summary">The diagnosis in one or two sentences.</param>
 /// <param name="Outcome">The diagnosis's overall answer: <c>withinTolerance</c>, <c>partsNamed</c>, <c>cannotDecide</c> or <c>noExplanationFits</c>.</param>
-/// <param name="Findings">The parts the diagnosis names, most probable first; empty when every part is within tolerance.</param>
+/// <param name="Findings">The parts the diagnosis names, most probable first; when every part is within tolerance, only a part that sits far from nominal inside a wide tolerance (verdict withinTolerance), else empty.</param>
 /// <param name="Coefficients">Each design term's coefficient, nominal and estimated.</param>
 /// <param name="Offsets">Each integrator's offset as an equivalent input offset voltage.</param>
 /// <param name="TimeScale">The board's time scale, nominal and estimated, or null.</param>

@@ -25,6 +25,11 @@ public sealed record DiagnosisOptions
     /// likeliest deviating part beside the verdict. Default 0.1 (the usual 10 % significance level, common practice).</summary>
     public double BorderlineHealthyPValue { get; init; } = 0.1;
 
+    /// <summary>A part value inside its tolerance is still reported beside a "within tolerance" verdict when the accepted
+    /// all-in-tolerance explanation puts its interval at least this fraction of its band away from nominal: a wide-tolerance
+    /// part that far off changes the board as a fault would. Default 0.75.</summary>
+    public double FarFromNominalBandFraction { get; init; } = 0.75;
+
     /// <summary>How many standard deviations the interval spans on each side (2 gives about 95 %). Default 2.</summary>
     public double IntervalSigmas { get; init; } = 2;
 

@@ -116,7 +116,7 @@ public sealed record PartFinding(
 /// <summary>Everything the diagnosis concluded.</summary>
 /// <param name="Outcome">The overall answer.</param>
 /// <param name="Summary">One or two sentences for the top of a report.</param>
-/// <param name="Findings">Named parts (empty when within tolerance); findings first in a report.</param>
+/// <param name="Findings">Named parts; when within tolerance, only parts that sit far from nominal inside a wide band (<see cref="DiagnosisOptions.FarFromNominalBandFraction"/>), else empty; findings first in a report.</param>
 /// <param name="Winner">The most probable hypothesis that was not rejected.</param>
 /// <param name="RunnerUp">The next most probable one naming other parts, or null.</param>
 /// <param name="Hypotheses">Every hypothesis considered, most probable first.</param>

@@ -135,7 +135,13 @@ public static class PartDiagnoser
                 notes.Add(BorderlineNote(columns, groups, healthy, suspect));
             }
 
-            return (DiagnosisOutcome.WithinTolerance, [], "Every part behaves within its tolerance: the measurements fit the design as drawn.");
+            var farOff = FarFromNominal(model, columns, groups, healthy, options);
+            return farOff.Count == 0
+                ? (DiagnosisOutcome.WithinTolerance, [], "Every part behaves within its tolerance: the measurements fit the design as drawn.")
+                : (DiagnosisOutcome.WithinTolerance, farOff,
+                    "Every part behaves within its tolerance, but "
+                    + string.Join(" and ", farOff.Select(f => string.Create(CultureInfo.InvariantCulture, $"{f.PartId} ({f.Deviation:+0.0;-0.0} %)")))
+                    + (farOff.Count == 1 ? " sits" : " sit") + " far from nominal, enough to change the board as a fault would.");
         }
 
         if (winner.Hypothesis.FitPValue < options.FitCheckPValue)
@@ -167,6 +173,35 @@ public static class PartDiagnoser
         }
 
         return (DiagnosisOutcome.PartsNamed, findings, string.Join(" ", findings.Select(finding => finding.Sentence)));
+    }
+
+    /// <summary>Part values the accepted all-in-tolerance explanation puts inside their band but resolved far from nominal
+    /// (a wide-tolerance part near its edge), each with the parts this capture cannot tell it from.</summary>
+    private static List<PartFinding> FarFromNominal(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, IReadOnlyList<ColumnGroup> groups, ScoredHypothesis healthy, DiagnosisOptions options)
+    {
+        var found = new List<PartFinding>();
+        for (var j = 0; j < columns.Count; j++)
+        {
+            var column = columns[j];
+            var (mean, sd) = (healthy.Hypothesis.Posterior[j].Mean, healthy.Hypothesis.Posterior[j].Sd);
+            if (column.Kind is not DiagnosisColumnKind.PartValue || !model.IsObservable(j) || Math.Abs(mean) > column.ToleranceBand
+                || Math.Abs(mean) - options.IntervalSigmas * sd < options.FarFromNominalBandFraction * column.ToleranceBand)
+            {
+                continue;
+            }
+
+            var alternatives = groups.First(group => group.Members.Contains(j)).Members
+                .Where(m => m != j && columns[m].Kind is DiagnosisColumnKind.PartValue)
+                .Select(m => (m, ratio: model.ImpliedRatio(j, m)))
+                .Where(pair => Math.Abs(mean * pair.ratio) <= columns[pair.m].PlausibleLimit)
+                .Select(pair => MakeFinding(columns[pair.m], mean * pair.ratio, sd * Math.Abs(pair.ratio), [], options))
+                .ToList();
+            var finding = MakeFinding(column, mean, sd, alternatives, options);
+            var used = string.Create(CultureInfo.InvariantCulture, $" It uses {100 * Math.Abs(mean) / column.ToleranceBand:0} % of its band; where the board must follow its design, fit a closer-tolerance part.");
+            found.Add(finding with { Sentence = finding.Sentence + used });
+        }
+
+        return found.OrderByDescending(finding => Math.Abs(finding.LogDeviation)).ToList();
     }
 
     private static PartFinding BuildFinding(LinearGaussianModel model, IReadOnlyList<DiagnosisColumn> columns, ColumnGroup group, IReadOnlyList<ColumnPosterior> posterior, DiagnosisOptions options)

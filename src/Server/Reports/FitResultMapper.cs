@@ -97,7 +97,7 @@ internal static class FitResultMapper
             $"With the board powered down, measure {finding.PartId} out of circuit; replace it with a part of the nominal value if it reads like this, then capture again.",
         FindingVerdictCode.CannotDecide =>
             "This capture cannot settle it: record longer, or add a channel for the variable this part feeds.",
-        _ => "Nothing to do: the part is within its tolerance.",
+        _ => $"{finding.PartId} is within its tolerance but far from nominal: where the board must follow its design, replace it with a closer-tolerance part of the nominal value.",
     };
 
     private static double OffsetStandardErrorMillivolts(OffsetEstimate offset) =>

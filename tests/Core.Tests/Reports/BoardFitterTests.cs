@@ -71,6 +71,38 @@ public sealed class BoardFitterTests
     }
 
     [Fact]
+    public void Fit_TwentyPercentCapacitorFifteenPercentLow_ReportsItFarFromNominalBesideAWithinToleranceVerdict()
+    {
+        // QH-L5's z integrator has a 20 % capacitor: 15 % low is inside its tolerance, yet it speeds that integrator up by 18 %.
+        var design = SyntheticBoardCapture.LoadDesign("qh-l5-tern.json");
+        var capacitor = design.Integrators.Single(i => i.Variable == "z").CapacitorId;
+        var asBuilt = design.WithPartValues(new Dictionary<string, double> { [capacitor] = 0.85 * design.NominalOf(capacitor) });
+        var capture = SyntheticBoardCapture.Simulate(asBuilt, seed: 16);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions { CompareInvariants = false }, Clock).Value;
+
+        Assert.Equal(DiagnosisOutcome.WithinTolerance, report.Diagnosis.Outcome);
+        var finding = Assert.Single(report.Diagnosis.Findings);
+        Assert.Equal(capacitor, finding.PartId);
+        Assert.Equal(PartVerdict.WithinTolerance, finding.Verdict);
+        Assert.InRange(finding.EffectiveValue / (0.85 * design.NominalOf(capacitor)), 0.99, 1.01);
+        Assert.Contains($"but {capacitor} (-1", report.Diagnosis.Summary, StringComparison.Ordinal);
+        Assert.Contains("closer-tolerance part", finding.Sentence, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_TwentyPercentCapacitorAtNominal_ReportsNoFinding()
+    {
+        var design = SyntheticBoardCapture.LoadDesign("qh-l5-tern.json");
+        var capture = SyntheticBoardCapture.Simulate(design, seed: 16);
+
+        var report = BoardFitter.Fit(design, capture, new BoardFitOptions { CompareInvariants = false }, Clock).Value;
+
+        Assert.Equal(DiagnosisOutcome.WithinTolerance, report.Diagnosis.Outcome);
+        Assert.Empty(report.Diagnosis.Findings);
+    }
+
+    [Fact]
     public void Fit_TooShortRecord_WarnsInsteadOfAConfidentFinding()
     {
         var design = SyntheticBoardCapture.LoadDesign("qh-l3-wren.json");
