@@ -105,8 +105,10 @@ internal static class FitsApi
         db.FitJobs.Add(fit);
         await db.SaveChangesAsync(cancellationToken);
 
-        // Read the answer before waking the workers, so it shows the fit as queued rather than racing a claim.
-        var response = await FindAsync(db, fit.Id, cancellationToken);
+        // The answer is the fit as accepted, built from what was just saved: a worker polling the queue may claim it
+        // before the request ends, and a read-back would then race that claim.
+        var response = ToResponse(new FitRow(fit.Id, fit.BoardId, design.Version, [.. captureIds], fit.State, fit.Progress, fit.Stage, fit.CancelRequested,
+            fit.Attempts, fit.Error, HasResult: false, fit.CreatedAtUnixMs, fit.StartedAtUnixMs, fit.FinishedAtUnixMs, fit.IgnoreBenchCalibration, fit.MappingJson));
         signal.Notify();
         return TypedResults.Accepted($"/api/fits/{fit.Id}", response);
     }
