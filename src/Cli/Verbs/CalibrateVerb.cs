@@ -32,48 +32,12 @@ internal static class CalibrateVerb
         return command;
     }
 
-    /// <summary>Reads --known-amplitude and --amplitude-accuracy: both or neither, a positive amplitude, an accuracy strictly between 0 and 1.</summary>
-    private static bool TryKnownAmplitude(string? amplitudeText, string? accuracyText, out double? amplitudeVolts, out double accuracy, out string error)
-    {
-        (amplitudeVolts, accuracy, error) = (null, 0, string.Empty);
-        if (amplitudeText is null && accuracyText is null)
-        {
-            return true;
-        }
-
-        if (amplitudeText is null)
-        {
-            error = "--amplitude-accuracy: give it with --known-amplitude, the square wave's peak-to-peak amplitude.";
-            return false;
-        }
-
-        if (!ValueNotation.TryParse(amplitudeText, Quantity.Voltage, out var volts, out var message) || !(volts > 0))
-        {
-            error = $"--known-amplitude {amplitudeText}: {message ?? "expected a positive peak-to-peak amplitude, for example 10V"}.";
-            return false;
-        }
-
-        if (accuracyText is null)
-        {
-            error = "--known-amplitude: also give --amplitude-accuracy, the amplitude's relative accuracy (for example 0.1%); an absolute gain is only as good as the amplitude it is measured against.";
-            return false;
-        }
-
-        if (!ValueNotation.TryParse(accuracyText, Quantity.Fraction, out accuracy, out message) || !(accuracy > 0 && accuracy < 1))
-        {
-            error = $"--amplitude-accuracy {accuracyText}: {message ?? "expected a relative accuracy above 0 and below 1, for example 0.1% or 0.001"}.";
-            return false;
-        }
-
-        amplitudeVolts = volts;
-        return true;
-    }
-
     private static int Run(CliConsole console, string[] files, string? reference, string? note, string? amplitudeText, string? accuracyText, string? jsonPath)
     {
-        if (!TryKnownAmplitude(amplitudeText, accuracyText, out var amplitudeVolts, out var accuracy, out var amplitudeError))
+        var known = KnownAmplitudeNotation.Read(amplitudeText, accuracyText, "--known-amplitude", "--amplitude-accuracy");
+        if (!known.IsValid)
         {
-            console.Error.WriteLine(amplitudeError);
+            console.Error.WriteLine(known.Error);
             return PatchproofCommandLine.BadInput;
         }
 
@@ -88,7 +52,7 @@ internal static class CalibrateVerb
             return PatchproofCommandLine.BadInput;
         }
 
-        var options = new ProbeCalibrationOptions { ReferenceChannel = reference, Note = note ?? "", KnownAmplitudeVolts = amplitudeVolts, KnownAmplitudeRelativeSd = accuracy };
+        var options = new ProbeCalibrationOptions { ReferenceChannel = reference, Note = note ?? "", KnownAmplitudeVolts = known.AmplitudeVolts, KnownAmplitudeRelativeSd = known.RelativeSd };
         var result = ProbeCalibrator.Calibrate(capture, files, options, TimeProvider.System);
         var invariant = CultureInfo.InvariantCulture;
         if (result.Calibration is { } calibration)

@@ -24,6 +24,10 @@ public sealed record ProbeCalibrationView(
     IReadOnlyList<ProbeChannelView> Channels,
     IReadOnlyList<string> Findings)
 {
+    /// <summary>For an absolute calibration (every probe on a square wave of known amplitude), the amplitude and the reference
+    /// channel's absolute gain; null for a relative one.</summary>
+    public KnownAmplitudeView? KnownAmplitude { get; init; }
+
     /// <summary>The one-signal check over every channel: false when one failed, true when all passed, null when the file does not record it.</summary>
     public bool? PassesOneSignalCheck
     {
@@ -74,3 +78,16 @@ public sealed record ProbeChannelView(
 /// <param name="GainSource">Where the gain came from, in words.</param>
 /// <param name="IsCalibrated">True when the gain came from a probe calibration.</param>
 public sealed record ChannelGainView(string Channel, string Variable, int Sign, double Gain, double GainSdPercent, string GainSource, bool IsCalibrated);
+
+/// <summary>The square wave an absolute calibration was measured against, and what it gave the reference channel.</summary>
+/// <param name="AmplitudeVolts">The stated peak-to-peak amplitude.</param>
+/// <param name="AmplitudeRelativeSd">Its stated relative accuracy, one sd.</param>
+/// <param name="ReferenceGain">The reference channel's absolute gain.</param>
+/// <param name="ReferenceGainSd">Its sd, the amplitude's accuracy included.</param>
+public sealed record KnownAmplitudeView(double AmplitudeVolts, double AmplitudeRelativeSd, double ReferenceGain, double ReferenceGainSd);
+
+/// <summary>What a person gives with a calibration capture besides the file.</summary>
+/// <param name="Note">Free text kept with the calibration, for example which node the probes sat on; null for none.</param>
+/// <param name="KnownAmplitude">For a square wave of known amplitude, its peak to peak as written (<c>10V</c>); null for a relative calibration.</param>
+/// <param name="AmplitudeAccuracy">The amplitude's relative accuracy as written (<c>0.1%</c>); needed with <paramref name="KnownAmplitude"/>.</param>
+public sealed record CalibrationCaptureDetails(string? Note, string? KnownAmplitude = null, string? AmplitudeAccuracy = null);

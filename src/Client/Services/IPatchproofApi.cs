@@ -28,9 +28,9 @@ public interface IPatchproofApi
     /// <summary>Sends a calibration capture (one CSV, every probe on one node) for the server to calibrate and, when usable, keep as the bench's newest calibration.</summary>
     /// <param name="benchId">The bench.</param>
     /// <param name="file">The capture file.</param>
-    /// <param name="note">Free text kept with the calibration, for example which node the probes sat on; null for none.</param>
+    /// <param name="details">The note, and for a square wave of known amplitude that amplitude and its accuracy.</param>
     /// <param name="cancellationToken">Stops the call.</param>
-    Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, string? note, CancellationToken cancellationToken = default);
+    Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, CalibrationCaptureDetails details, CancellationToken cancellationToken = default);
 
     /// <summary>Lists the boards of a bench.</summary>
     Task<ApiResult<IReadOnlyList<BoardSummary>>> ListBoardsAsync(Guid benchId, CancellationToken cancellationToken = default);

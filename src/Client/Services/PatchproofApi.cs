@@ -38,14 +38,18 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
         GetListAsync<ProbeCalibrationSummary, ProbeCalibrationView>($"api/benches/{benchId}/probe-calibrations", w => w.ToView(), cancellationToken);
 
     /// <inheritdoc />
-    public Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, string? note, CancellationToken cancellationToken = default) =>
+    public Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, CalibrationCaptureDetails details, CancellationToken cancellationToken = default) =>
         SendAsync<ProbeCalibrationSummary, ProbeCalibrationView>(
             () =>
             {
                 var body = new StreamContent(file.OpenRead());
                 body.Headers.ContentType = new MediaTypeHeaderValue(string.IsNullOrEmpty(file.ContentType) ? "text/csv" : file.ContentType);
                 var form = new MultipartFormDataContent { { body, "file", file.FileName } };
-                var query = string.IsNullOrWhiteSpace(note) ? "" : "?note=" + Uri.EscapeDataString(note.Trim());
+                var parameters = new[] { ("note", details.Note), ("knownAmplitude", details.KnownAmplitude), ("amplitudeAccuracy", details.AmplitudeAccuracy) }
+                    .Where(p => !string.IsNullOrWhiteSpace(p.Item2))
+                    .Select(p => p.Item1 + "=" + Uri.EscapeDataString(p.Item2!.Trim()))
+                    .ToList();
+                var query = parameters.Count == 0 ? "" : "?" + string.Join("&", parameters);
                 return new HttpRequestMessage(HttpMethod.Post, $"api/benches/{benchId}/probe-calibrations/from-capture{query}") { Content = form };
             },
             w => w.ToView(),

@@ -79,9 +79,18 @@ internal static class ProbeCalibrationsApi
     }
 
     /// <summary>Reads the calibration capture into a temporary file, calibrates it and stores the calibration only when it is usable.</summary>
-    private static async Task<Results<Created<ProbeCalibrationSummary>, ProblemHttpResult>> CalibrateCaptureAsync(
-        Guid benchId, HttpRequest request, string? note, string? reference, PatchproofDbContext db, ProbeCalibrationStore store, TimeProvider time, CancellationToken cancellationToken)
+    /// <remarks>With <c>knownAmplitude</c> (the square wave's peak to peak, <c>10V</c>) and <c>amplitudeAccuracy</c> (<c>0.1%</c>), an
+    /// absolute calibration: every probe on a square wave of known amplitude.</remarks>
+    private static async Task<Results<Created<ProbeCalibrationSummary>, ValidationProblem, ProblemHttpResult>> CalibrateCaptureAsync(
+        Guid benchId, HttpRequest request, string? note, string? reference, string? knownAmplitude, string? amplitudeAccuracy,
+        PatchproofDbContext db, ProbeCalibrationStore store, TimeProvider time, CancellationToken cancellationToken)
     {
+        var known = KnownAmplitudeNotation.Read(Blank(knownAmplitude), Blank(amplitudeAccuracy), "knownAmplitude", "amplitudeAccuracy");
+        if (!known.IsValid)
+        {
+            return ApiProblems.Invalid(known.ErrorField!, known.Error!);
+        }
+
         if (!MediaTypeHeaderValue.TryParse(request.ContentType, out var mediaType)
             || !mediaType.MediaType.Equals("multipart/form-data", StringComparison.OrdinalIgnoreCase)
             || HeaderUtilities.RemoveQuotes(mediaType.Boundary).Value is not { Length: > 0 } boundary)
@@ -104,14 +113,21 @@ internal static class ProbeCalibrationsApi
                 && string.Equals(HeaderUtilities.RemoveQuotes(disposition.Name).Value, "file", StringComparison.OrdinalIgnoreCase))
             {
                 var fileName = Label(HeaderUtilities.RemoveQuotes(disposition.FileNameStar.HasValue ? disposition.FileNameStar : disposition.FileName).Value);
-                return await CalibrateFileAsync(benchId, fileName, section.Body, new ProbeCalibrationOptions { ReferenceChannel = Blank(reference), Note = Blank(note) ?? "" }, store, time, cancellationToken);
+                var options = new ProbeCalibrationOptions
+                {
+                    ReferenceChannel = Blank(reference),
+                    Note = Blank(note) ?? "",
+                    KnownAmplitudeVolts = known.AmplitudeVolts,
+                    KnownAmplitudeRelativeSd = known.RelativeSd,
+                };
+                return await CalibrateFileAsync(benchId, fileName, section.Body, options, store, time, cancellationToken);
             }
         }
 
         return TypedResults.Problem(statusCode: StatusCodes.Status400BadRequest, title: "No file", detail: "The upload has no file part named 'file'.");
     }
 
-    private static async Task<Results<Created<ProbeCalibrationSummary>, ProblemHttpResult>> CalibrateFileAsync(
+    private static async Task<Results<Created<ProbeCalibrationSummary>, ValidationProblem, ProblemHttpResult>> CalibrateFileAsync(
         Guid benchId, string fileName, Stream body, ProbeCalibrationOptions options, ProbeCalibrationStore store, TimeProvider time, CancellationToken cancellationToken)
     {
         var tempPath = store.NewTempPath();

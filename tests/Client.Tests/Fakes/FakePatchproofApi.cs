@@ -18,7 +18,7 @@ internal sealed class FakePatchproofApi : IPatchproofApi
 
     public Task<ApiResult<IReadOnlyList<ProbeCalibrationView>>> Calibrations { get; set; } = NotSet<IReadOnlyList<ProbeCalibrationView>>();
 
-    public Func<UploadFile, string?, Task<ApiResult<ProbeCalibrationView>>> Calibrate { get; set; } = (_, _) => NotSet<ProbeCalibrationView>();
+    public Func<UploadFile, CalibrationCaptureDetails, Task<ApiResult<ProbeCalibrationView>>> Calibrate { get; set; } = (_, _) => NotSet<ProbeCalibrationView>();
 
     public bool? LastFitIgnoredBenchCalibration { get; private set; }
 
@@ -82,7 +82,7 @@ internal sealed class FakePatchproofApi : IPatchproofApi
 
     public Task<ApiResult<IReadOnlyList<ProbeCalibrationView>>> ListProbeCalibrationsAsync(Guid benchId, CancellationToken cancellationToken = default) => Calibrations;
 
-    public Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, string? note, CancellationToken cancellationToken = default) => Calibrate(file, note);
+    public Task<ApiResult<ProbeCalibrationView>> CalibrateProbesAsync(Guid benchId, UploadFile file, CalibrationCaptureDetails details, CancellationToken cancellationToken = default) => Calibrate(file, details);
 
     public Task<ApiResult<IReadOnlyList<BoardSummary>>> ListBoardsAsync(Guid benchId, CancellationToken cancellationToken = default) => Boards;
 

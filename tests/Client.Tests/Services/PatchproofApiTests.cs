@@ -77,13 +77,33 @@ public sealed class PatchproofApiTests
         Assert.Null(started.Value.Mapping);
     }
 
-    /// <summary>Answers every request with 200 and the given JSON body, and keeps the last request's body.</summary>
+    [Fact]
+    public async Task CalibrateProbesAsync_WithAKnownAmplitude_SendsItAndItsAccuracyInTheQueryAndReadsTheAbsoluteGainBack()
+    {
+        var answer = new Patchproof.Contracts.Benches.ProbeCalibrationSummary(BoardId, "CH1", ["CH1", "CH2"], At, At)
+        {
+            KnownAmplitude = new Patchproof.Contracts.Benches.ProbeCalibrationKnownAmplitudeSummary(10, 0.001, 6.07, -4.03, 1.0102, 0.0027),
+        };
+        var handler = new AnswerWith(JsonSerializer.Serialize(answer, JsonSerializerOptions.Web));
+        var api = new PatchproofApi(new HttpClient(handler) { BaseAddress = new Uri("http://localhost/") });
+        var file = new UploadFile("square.csv", 12, "text/csv", () => new MemoryStream(Encoding.ASCII.GetBytes("t,CH1\n0,6\n")));
+
+        var stored = await api.CalibrateProbesAsync(BoardId, file, new CalibrationCaptureDetails(" bench square wave ", "10V", "0.1%"), TestContext.Current.CancellationToken);
+
+        Assert.Equal("?note=bench%20square%20wave&knownAmplitude=10V&amplitudeAccuracy=0.1%25", handler.LastUri!.Query);
+        Assert.Equal(new KnownAmplitudeView(10, 0.001, 1.0102, 0.0027), stored.Value.KnownAmplitude);
+    }
+
+    /// <summary>Answers every request with 200 and the given JSON body, and keeps the last request's address and body.</summary>
     private sealed class AnswerWith(string json) : HttpMessageHandler
     {
         public string? LastBody { get; private set; }
 
+        public Uri? LastUri { get; private set; }
+
         protected override async Task<HttpResponseMessage> SendAsync(HttpRequestMessage request, CancellationToken cancellationToken)
         {
+            LastUri = request.RequestUri;
             LastBody = request.Content is null ? null : await request.Content.ReadAsStringAsync(cancellationToken);
             return new HttpResponseMessage(HttpStatusCode.OK) { Content = new StringContent(json, Encoding.UTF8, "application/json") };
         }

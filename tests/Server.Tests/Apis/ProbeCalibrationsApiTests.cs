@@ -153,6 +153,40 @@ public abstract class ProbeCalibrationsApiTests(ServerDatabase database)
     }
 
     [Fact]
+    public async Task CalibrateFromCapture_SquareWaveOfKnownAmplitude_StoresAbsoluteGains()
+    {
+        await using var api = ApiTest.Start(database);
+        var bench = await api.CreateBenchAsync("Bench 18");
+        // The demo's square-wave capture was recorded with CH1 1.2 % high (sample-captures/regenerate.sh).
+        var csv = await File.ReadAllBytesAsync(Path.Combine(Patchproof.TestSupport.ReferenceDataFiles.RepositoryRoot, "sample-captures", "qh-r1-gannet-square-wave-probe-calibration.csv"), ApiTest.Token);
+
+        using var response = await PostCaptureAsync(api, bench.Id, csv, "square.csv", null, "?knownAmplitude=10V&amplitudeAccuracy=0.1%25");
+        var newest = await api.Client.GetStringAsync($"/api/benches/{bench.Id}/probe-calibrations/newest", ApiTest.Token);
+
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        var known = (await response.Content.ReadFromJsonAsync<ProbeCalibrationSummary>(ApiTest.Token))!.KnownAmplitude;
+        Assert.NotNull(known);
+        Assert.Equal(10, known.AmplitudeVolts);
+        Assert.Equal(0.001, known.AmplitudeRelativeSd, 12);
+        Assert.InRange(known.ReferenceGain, 1.012 - (3 * known.ReferenceGainSd), 1.012 + (3 * known.ReferenceGainSd));
+        Assert.True(ProbeCalibrationFile.Read(newest).Value.IsAbsolute);
+    }
+
+    [Fact]
+    public async Task CalibrateFromCapture_KnownAmplitudeWithoutItsAccuracy_AnswersBadRequestNamingTheFieldAndStoresNothing()
+    {
+        await using var api = ApiTest.Start(database);
+        var bench = await api.CreateBenchAsync("Bench 19");
+
+        using var response = await PostCaptureAsync(api, bench.Id, CalibrationCaptureFiles.Csv([1.0, 1.0], seed: 6), "cal.csv", null, "?knownAmplitude=10V");
+        using var newest = await api.Client.GetAsync($"/api/benches/{bench.Id}/probe-calibrations/newest", ApiTest.Token);
+
+        var problem = await ApiTest.ReadProblemAsync(response, HttpStatusCode.BadRequest);
+        Assert.Contains("0.1%", problem.GetProperty("errors").GetProperty("amplitudeAccuracy")[0].GetString(), StringComparison.Ordinal);
+        Assert.Equal(HttpStatusCode.NotFound, newest.StatusCode);
+    }
+
+    [Fact]
     public async Task List_BenchWithoutCalibration_IsEmpty()
     {
         await using var api = ApiTest.Start(database);
@@ -163,12 +197,12 @@ public abstract class ProbeCalibrationsApiTests(ServerDatabase database)
         Assert.Empty(listed!);
     }
 
-    private static async Task<HttpResponseMessage> PostCaptureAsync(ApiTest api, Guid benchId, byte[] csv, string fileName, string? note)
+    private static async Task<HttpResponseMessage> PostCaptureAsync(ApiTest api, Guid benchId, byte[] csv, string fileName, string? note, string? query = null)
     {
         using var file = new ByteArrayContent(csv);
         file.Headers.ContentType = new System.Net.Http.Headers.MediaTypeHeaderValue("text/csv");
         using var form = new MultipartFormDataContent { { file, "file", fileName } };
-        var query = note is null ? "" : "?note=" + Uri.EscapeDataString(note);
+        query ??= note is null ? "" : "?note=" + Uri.EscapeDataString(note);
         return await api.Client.PostAsync($"/api/benches/{benchId}/probe-calibrations/from-capture{query}", form, ApiTest.Token);
     }
 

@@ -32,7 +32,10 @@ internal static class WireMapping
         var details = w.ChannelDetails is { Count: > 0 } given
             ? given.Select(c => new ProbeChannelView(c.Channel, c.IsReference, c.Gain, c.GainSd, c.OffsetVolts, c.OffsetSdVolts, c.Correlation, c.ResidualRmsVolts, c.ExpectedResidualRmsVolts, c.FollowsReference)).ToList()
             : (w.Channels ?? []).Select(name => new ProbeChannelView(name, name == w.ReferenceChannel, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, null)).ToList();
-        return new ProbeCalibrationView(w.BenchId, w.ReferenceChannel, w.CreatedAt, w.UploadedAt, w.Note ?? "", w.SampleCount, w.DurationSeconds, w.SourceFiles ?? [], details, w.Findings ?? []);
+        return new ProbeCalibrationView(w.BenchId, w.ReferenceChannel, w.CreatedAt, w.UploadedAt, w.Note ?? "", w.SampleCount, w.DurationSeconds, w.SourceFiles ?? [], details, w.Findings ?? [])
+        {
+            KnownAmplitude = w.KnownAmplitude is { } known ? new KnownAmplitudeView(known.AmplitudeVolts, known.AmplitudeRelativeSd, known.ReferenceGain, known.ReferenceGainSd) : null,
+        };
     }
 
     public static ChannelMapping ToView(this ChannelMappingWire w) => new(w.Channel, w.Variable, w.Sign < 0 ? -1 : 1);

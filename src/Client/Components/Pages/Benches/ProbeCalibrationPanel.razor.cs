@@ -32,6 +32,8 @@ public sealed partial class ProbeCalibrationPanel
     private ApiProblem? loadProblem;
     private IBrowserFile? chosen;
     private string? note;
+    private string? knownAmplitude;
+    private string? amplitudeAccuracy;
     private bool uploading;
     private ApiProblem? uploadProblem;
     private ProbeCalibrationView? stored;
@@ -81,7 +83,7 @@ public sealed partial class ProbeCalibrationPanel
         uploading = true;
         uploadProblem = null;
         stored = null;
-        var result = await Api.CalibrateProbesAsync(BenchId, new UploadFile(file.Name, file.Size, file.ContentType, () => file.OpenReadStream(MaxFileBytes)), note);
+        var result = await Api.CalibrateProbesAsync(BenchId, new UploadFile(file.Name, file.Size, file.ContentType, () => file.OpenReadStream(MaxFileBytes)), new CalibrationCaptureDetails(note, knownAmplitude, amplitudeAccuracy));
         uploading = false;
         if (!result.Succeeded)
         {

@@ -106,10 +106,10 @@ public sealed class ProbeCalibrationPanelTests : BunitContext
     {
         api.Calibrations = FakePatchproofApi.Ok<IReadOnlyList<ProbeCalibrationView>>([]);
         var sent = new List<(string File, string Content, string? Note)>();
-        api.Calibrate = (file, note) =>
+        api.Calibrate = (file, details) =>
         {
             using var reader = new StreamReader(file.OpenRead());
-            sent.Add((file.FileName, reader.ReadToEnd(), note));
+            sent.Add((file.FileName, reader.ReadToEnd(), details.Note));
             return FakePatchproofApi.Ok(Calibration(1.0183, followsReference: true) with { SourceFiles = [file.FileName] });
         };
         var cut = RenderPanel();
@@ -127,6 +127,48 @@ public sealed class ProbeCalibrationPanelTests : BunitContext
             Assert.Contains("wren-cal.csv stored", cut.Find(".stored").TextContent, StringComparison.Ordinal);
             Assert.Contains("1.01830", cut.Find("table.gains").TextContent, StringComparison.Ordinal);
         });
+    }
+
+    [Fact]
+    public void Calibrate_SquareWaveOfKnownAmplitude_SendsTheAmplitudeAndItsAccuracyAndShowsTheAbsoluteGain()
+    {
+        api.Calibrations = FakePatchproofApi.Ok<IReadOnlyList<ProbeCalibrationView>>([]);
+        CalibrationCaptureDetails? sent = null;
+        api.Calibrate = (file, details) =>
+        {
+            sent = details;
+            return FakePatchproofApi.Ok(Calibration(0.9873, followsReference: true) with
+            {
+                SourceFiles = [file.FileName],
+                KnownAmplitude = new KnownAmplitudeView(10, 0.001, 1.0102, 0.0027),
+            });
+        };
+        var cut = RenderPanel();
+        cut.WaitForAssertion(() => Assert.Equal(ProbeCalibrationPanelState.Empty, cut.Instance.State));
+
+        cut.FindComponent<InputFile>().UploadFiles(InputFileContent.CreateFromText("t,CH1,CH2\n0,6,6\n", "square.csv", contentType: "text/csv"));
+        cut.Find("#calibration-amplitude").Change("10V");
+        cut.Find("#calibration-accuracy").Change("0.1%");
+        cut.Find("form.calibration-upload").Submit();
+
+        cut.WaitForAssertion(() =>
+        {
+            Assert.Equal(new CalibrationCaptureDetails(null, "10V", "0.1%"), sent);
+            var meta = cut.Find(".current .meta .absolute").TextContent;
+            Assert.Contains("10 V peak to peak", meta, StringComparison.Ordinal);
+            Assert.Contains("1.0102 ± 0.0027", meta, StringComparison.Ordinal);
+        });
+    }
+
+    [Fact]
+    public void Render_RelativeCalibration_SaysTheReferenceGainIsNotMeasured()
+    {
+        api.Calibrations = FakePatchproofApi.Ok<IReadOnlyList<ProbeCalibrationView>>([Calibration(1.0183, followsReference: true)]);
+
+        var cut = RenderPanel();
+
+        cut.WaitForAssertion(() => Assert.Contains("own gain is not measured", cut.Find(".current .meta .relative").TextContent, StringComparison.Ordinal));
+        Assert.Empty(cut.FindAll(".current .meta .absolute"));
     }
 
     [Fact]
