@@ -221,6 +221,7 @@ public sealed class DormandPrince45Stepper
         if (!started)
         {
             started = true;
+            evaluations++;
             EvaluateRightHandSide(time, y, k1);
             nextStepMagnitude = fixedStep > 0 ? fixedStep : firstStep > 0 ? Math.Min(firstStep, maxStep) : InitialStepMagnitude();
         }
@@ -239,8 +240,8 @@ public sealed class DormandPrince45Stepper
                 return false;
             }
 
-            var minimumStep = 10.0 * Math.Abs(Math.BitIncrement(Math.Abs(time)) - Math.Abs(time));
-            if (!(nextStepMagnitude >= minimumStep))
+            // 10 ulp(t) is at most 2.3e-15 |t|: only a step up to 1e-13 |t| needs the exact test (a NaN or zero step fails both).
+            if (!(nextStepMagnitude > 1e-13 * Math.Abs(time)) && !(nextStepMagnitude >= 10.0 * Math.Abs(Math.BitIncrement(Math.Abs(time)) - Math.Abs(time))))
             {
                 Finish(SolveStatus.StepSizeTooSmall);
                 return false;
@@ -340,8 +341,11 @@ public sealed class DormandPrince45Stepper
     {
         // Implementation note: every buffer holds exactly `dimension` values, so the stage loops index
         // through references without per-element bounds checks; for n = 3 those checks cost about as
-        // much as the arithmetic.
+        // much as the arithmetic. Each stage adds the newest derivative last, as one product onto a sum
+        // of the older ones: a step is a chain of stages, each waiting for the one before, and that
+        // order leaves one multiply and one add between a derivative and the next stage.
         var n = dimension;
+        evaluations += 6;
         ref var y0 = ref MemoryMarshal.GetArrayDataReference(y);
         ref var s = ref MemoryMarshal.GetArrayDataReference(stage);
         ref var f1 = ref MemoryMarshal.GetArrayDataReference(k1);
@@ -352,60 +356,71 @@ public sealed class DormandPrince45Stepper
         ref var f6 = ref MemoryMarshal.GetArrayDataReference(k6);
         ref var f7 = ref MemoryMarshal.GetArrayDataReference(k7);
         ref var y1 = ref MemoryMarshal.GetArrayDataReference(yNew);
-        ref var err = ref MemoryMarshal.GetArrayDataReference(error);
+        ref var inverseScale = ref MemoryMarshal.GetArrayDataReference(error);
 
+        var last = h * A21;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i) + (h * A21 * Unsafe.Add(ref f1, i));
+            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i) + (last * Unsafe.Add(ref f1, i));
         }
 
         EvaluateRightHandSide(time + (C2 * h), stage, k2);
+        last = h * A32;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i) + (h * ((A31 * Unsafe.Add(ref f1, i)) + (A32 * Unsafe.Add(ref f2, i))));
+            Unsafe.Add(ref s, i) = (Unsafe.Add(ref y0, i) + (h * A31 * Unsafe.Add(ref f1, i))) + (last * Unsafe.Add(ref f2, i));
         }
 
         EvaluateRightHandSide(time + (C3 * h), stage, k3);
+        last = h * A43;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i)
-                + (h * ((A41 * Unsafe.Add(ref f1, i)) + (A42 * Unsafe.Add(ref f2, i)) + (A43 * Unsafe.Add(ref f3, i))));
+            Unsafe.Add(ref s, i) = (Unsafe.Add(ref y0, i) + (h * ((A41 * Unsafe.Add(ref f1, i)) + (A42 * Unsafe.Add(ref f2, i)))))
+                + (last * Unsafe.Add(ref f3, i));
         }
 
         EvaluateRightHandSide(time + (C4 * h), stage, k4);
+        last = h * A54;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i)
-                + (h * ((A51 * Unsafe.Add(ref f1, i)) + (A52 * Unsafe.Add(ref f2, i)) + (A53 * Unsafe.Add(ref f3, i)) + (A54 * Unsafe.Add(ref f4, i))));
+            Unsafe.Add(ref s, i) = (Unsafe.Add(ref y0, i) + (h * ((A51 * Unsafe.Add(ref f1, i)) + (A52 * Unsafe.Add(ref f2, i)) + (A53 * Unsafe.Add(ref f3, i)))))
+                + (last * Unsafe.Add(ref f4, i));
         }
 
         EvaluateRightHandSide(time + (C5 * h), stage, k5);
+        last = h * A65;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i)
-                + (h * ((A61 * Unsafe.Add(ref f1, i)) + (A62 * Unsafe.Add(ref f2, i)) + (A63 * Unsafe.Add(ref f3, i))
-                    + (A64 * Unsafe.Add(ref f4, i)) + (A65 * Unsafe.Add(ref f5, i))));
+            Unsafe.Add(ref s, i) = (Unsafe.Add(ref y0, i)
+                + (h * ((A61 * Unsafe.Add(ref f1, i)) + (A62 * Unsafe.Add(ref f2, i)) + (A63 * Unsafe.Add(ref f3, i)) + (A64 * Unsafe.Add(ref f4, i)))))
+                + (last * Unsafe.Add(ref f5, i));
         }
 
         // Stages 6 and 7 sit at c = 1: use newTime itself so no stage is evaluated past the end time.
         EvaluateRightHandSide(newTime, stage, k6);
+        last = h * B6;
         for (var i = 0; i < n; i++)
         {
-            var value = Unsafe.Add(ref y0, i)
-                + (h * ((B1 * Unsafe.Add(ref f1, i)) + (B3 * Unsafe.Add(ref f3, i)) + (B4 * Unsafe.Add(ref f4, i))
-                    + (B5 * Unsafe.Add(ref f5, i)) + (B6 * Unsafe.Add(ref f6, i))));
-            Unsafe.Add(ref y1, i) = value;
+            Unsafe.Add(ref y1, i) = (Unsafe.Add(ref y0, i)
+                + (h * ((B1 * Unsafe.Add(ref f1, i)) + (B3 * Unsafe.Add(ref f3, i)) + (B4 * Unsafe.Add(ref f4, i)) + (B5 * Unsafe.Add(ref f5, i)))))
+                + (last * Unsafe.Add(ref f6, i));
         }
 
+        // The norm's scales need only y0 and y1: their reciprocals are ready before the last stage is, so the
+        // error waits for a multiply instead of a division.
+        var count = absoluteTolerances.Length;
+        ScaledErrorNorm.InverseScales(y.AsSpan(0, count), yNew.AsSpan(0, count), absoluteTolerances, relativeTolerance, error.AsSpan(0, count));
         EvaluateRightHandSide(newTime, yNew, k7);
-        for (var i = 0; i < n; i++)
+        last = h * E7;
+        var sumOfSquares = 0.0;
+        for (var i = 0; i < count; i++)
         {
-            var seventh = Unsafe.Add(ref f7, i);
-            Unsafe.Add(ref err, i) = h * ((E1 * Unsafe.Add(ref f1, i)) + (E3 * Unsafe.Add(ref f3, i)) + (E4 * Unsafe.Add(ref f4, i))
-                + (E5 * Unsafe.Add(ref f5, i)) + (E6 * Unsafe.Add(ref f6, i)) + (E7 * seventh));
+            var scaled = ((h * ((E1 * Unsafe.Add(ref f1, i)) + (E3 * Unsafe.Add(ref f3, i)) + (E4 * Unsafe.Add(ref f4, i)) + (E5 * Unsafe.Add(ref f5, i)) + (E6 * Unsafe.Add(ref f6, i))))
+                + (last * Unsafe.Add(ref f7, i))) * Unsafe.Add(ref inverseScale, i);
+            sumOfSquares += scaled * scaled;
         }
 
-        var normSquared = ScaledErrorNorm.MeanSquare(error, y, yNew, absoluteTolerances, relativeTolerance);
+        var normSquared = sumOfSquares / count;
 
         // A NaN or infinity in the new vector or its derivative makes this sum non-finite. Summed here rather than
         // inside the stage loops, where the extra running value cost a register and a spill in every stage.
@@ -421,7 +436,7 @@ public sealed class DormandPrince45Stepper
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private void EvaluateRightHandSide(double at, double[] vector, double[] derivative)
     {
-        evaluations++;
+        // Not counted here: TryStep counts its six evaluations at once, so the stages do not each update a field.
         if (!hasSensitivities)
         {
             system.Evaluate(at, vector, parameters, derivative);
@@ -505,6 +520,7 @@ public sealed class DormandPrince45Stepper
             stage[i] = y[i] + (direction * h0 * k1[i]);
         }
 
+        evaluations++;
         EvaluateRightHandSide(time + (direction * h0), stage, k2);
         var d2 = 0.0;
         for (var i = 0; i < count; i++)

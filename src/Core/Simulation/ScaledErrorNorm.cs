@@ -9,23 +9,18 @@ namespace Patchproof.Core.Simulation;
 /// </remarks>
 internal static class ScaledErrorNorm
 {
-    /// <summary>The square ‖e‖² of the scaled RMS norm of <paramref name="error"/>.</summary>
-    /// <remarks>The stepper compares ‖e‖² with 1 and takes ln ‖e‖ as ln(‖e‖²) / 2, which saves a square
-    /// root on every step's critical path.</remarks>
-    public static double MeanSquare(ReadOnlySpan<double> error, ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> absoluteTolerances, double relativeTolerance)
+    /// <summary>Writes 1 / sc_i for every error-controlled component.</summary>
+    /// <remarks>The stepper multiplies each error component by these and compares ‖e‖² with 1, taking ln ‖e‖ as
+    /// ln(‖e‖²) / 2: no division and no square root wait on the last stage.</remarks>
+    public static void InverseScales(ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> absoluteTolerances, double relativeTolerance, Span<double> destination)
     {
         var count = absoluteTolerances.Length;
-        error = error[..count];
         y = y[..count];
         yNew = yNew[..count];
-        var sum = 0.0;
+        destination = destination[..count];
         for (var i = 0; i < absoluteTolerances.Length; i++)
         {
-            var scale = absoluteTolerances[i] + (relativeTolerance * Math.Max(Math.Abs(y[i]), Math.Abs(yNew[i])));
-            var ratio = error[i] / scale;
-            sum += ratio * ratio;
+            destination[i] = 1.0 / (absoluteTolerances[i] + (relativeTolerance * Math.Max(Math.Abs(y[i]), Math.Abs(yNew[i]))));
         }
-
-        return sum / count;
     }
 }
