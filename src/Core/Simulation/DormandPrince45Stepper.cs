@@ -361,39 +361,38 @@ public sealed class DormandPrince45Stepper
         var last = h * A21;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = Unsafe.Add(ref y0, i) + (last * Unsafe.Add(ref f1, i));
+            Unsafe.Add(ref s, i) = Math.FusedMultiplyAdd(last, Unsafe.Add(ref f1, i), Unsafe.Add(ref y0, i));
         }
 
         EvaluateRightHandSide(time + (C2 * h), stage, k2);
         last = h * A32;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = (Unsafe.Add(ref y0, i) + (h * A31 * Unsafe.Add(ref f1, i))) + (last * Unsafe.Add(ref f2, i));
+            Unsafe.Add(ref s, i) = Math.FusedMultiplyAdd(last, Unsafe.Add(ref f2, i), Unsafe.Add(ref y0, i) + (h * A31 * Unsafe.Add(ref f1, i)));
         }
 
         EvaluateRightHandSide(time + (C3 * h), stage, k3);
         last = h * A43;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = (Unsafe.Add(ref y0, i) + (h * ((A41 * Unsafe.Add(ref f1, i)) + (A42 * Unsafe.Add(ref f2, i)))))
-                + (last * Unsafe.Add(ref f3, i));
+            Unsafe.Add(ref s, i) = Math.FusedMultiplyAdd(last, Unsafe.Add(ref f3, i),
+                Unsafe.Add(ref y0, i) + (h * ((A41 * Unsafe.Add(ref f1, i)) + (A42 * Unsafe.Add(ref f2, i)))));
         }
 
         EvaluateRightHandSide(time + (C4 * h), stage, k4);
         last = h * A54;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = (Unsafe.Add(ref y0, i) + (h * ((A51 * Unsafe.Add(ref f1, i)) + (A52 * Unsafe.Add(ref f2, i)) + (A53 * Unsafe.Add(ref f3, i)))))
-                + (last * Unsafe.Add(ref f4, i));
+            Unsafe.Add(ref s, i) = Math.FusedMultiplyAdd(last, Unsafe.Add(ref f4, i),
+                Unsafe.Add(ref y0, i) + (h * ((A51 * Unsafe.Add(ref f1, i)) + (A52 * Unsafe.Add(ref f2, i)) + (A53 * Unsafe.Add(ref f3, i)))));
         }
 
         EvaluateRightHandSide(time + (C5 * h), stage, k5);
         last = h * A65;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref s, i) = (Unsafe.Add(ref y0, i)
-                + (h * ((A61 * Unsafe.Add(ref f1, i)) + (A62 * Unsafe.Add(ref f2, i)) + (A63 * Unsafe.Add(ref f3, i)) + (A64 * Unsafe.Add(ref f4, i)))))
-                + (last * Unsafe.Add(ref f5, i));
+            Unsafe.Add(ref s, i) = Math.FusedMultiplyAdd(last, Unsafe.Add(ref f5, i),
+                Unsafe.Add(ref y0, i) + (h * ((A61 * Unsafe.Add(ref f1, i)) + (A62 * Unsafe.Add(ref f2, i)) + (A63 * Unsafe.Add(ref f3, i)) + (A64 * Unsafe.Add(ref f4, i)))));
         }
 
         // Stages 6 and 7 sit at c = 1: use newTime itself so no stage is evaluated past the end time.
@@ -401,9 +400,8 @@ public sealed class DormandPrince45Stepper
         last = h * B6;
         for (var i = 0; i < n; i++)
         {
-            Unsafe.Add(ref y1, i) = (Unsafe.Add(ref y0, i)
-                + (h * ((B1 * Unsafe.Add(ref f1, i)) + (B3 * Unsafe.Add(ref f3, i)) + (B4 * Unsafe.Add(ref f4, i)) + (B5 * Unsafe.Add(ref f5, i)))))
-                + (last * Unsafe.Add(ref f6, i));
+            Unsafe.Add(ref y1, i) = Math.FusedMultiplyAdd(last, Unsafe.Add(ref f6, i),
+                Unsafe.Add(ref y0, i) + (h * ((B1 * Unsafe.Add(ref f1, i)) + (B3 * Unsafe.Add(ref f3, i)) + (B4 * Unsafe.Add(ref f4, i)) + (B5 * Unsafe.Add(ref f5, i)))));
         }
 
         // The norm's scales need only y0 and y1: their reciprocals are ready before the last stage is, so the
@@ -415,9 +413,9 @@ public sealed class DormandPrince45Stepper
         var sumOfSquares = 0.0;
         for (var i = 0; i < count; i++)
         {
-            var scaled = ((h * ((E1 * Unsafe.Add(ref f1, i)) + (E3 * Unsafe.Add(ref f3, i)) + (E4 * Unsafe.Add(ref f4, i)) + (E5 * Unsafe.Add(ref f5, i)) + (E6 * Unsafe.Add(ref f6, i))))
-                + (last * Unsafe.Add(ref f7, i))) * Unsafe.Add(ref inverseScale, i);
-            sumOfSquares += scaled * scaled;
+            var scaled = Math.FusedMultiplyAdd(last, Unsafe.Add(ref f7, i),
+                h * ((E1 * Unsafe.Add(ref f1, i)) + (E3 * Unsafe.Add(ref f3, i)) + (E4 * Unsafe.Add(ref f4, i)) + (E5 * Unsafe.Add(ref f5, i)) + (E6 * Unsafe.Add(ref f6, i)))) * Unsafe.Add(ref inverseScale, i);
+            sumOfSquares = Math.FusedMultiplyAdd(scaled, scaled, sumOfSquares);
         }
 
         var normSquared = sumOfSquares / count;
