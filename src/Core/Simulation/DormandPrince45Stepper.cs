@@ -343,7 +343,7 @@ public sealed class DormandPrince45Stepper
         // through references without per-element bounds checks; for n = 3 those checks cost about as
         // much as the arithmetic. Each stage adds the newest derivative last, as one product onto a sum
         // of the older ones: a step is a chain of stages, each waiting for the one before, and that
-        // order leaves one multiply and one add between a derivative and the next stage.
+        // order leaves one fused multiply-add (exactly rounded everywhere) between a derivative and the next stage.
         var n = dimension;
         evaluations += 6;
         ref var y0 = ref MemoryMarshal.GetArrayDataReference(y);
