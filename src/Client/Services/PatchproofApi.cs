@@ -2,6 +2,7 @@ using System.Net;
 using System.Net.Http.Headers;
 using System.Net.Http.Json;
 using System.Text.Json;
+using System.Text.Json.Serialization.Metadata;
 using Patchproof.Client.Models;
 using Patchproof.Client.Services.Wire;
 using Patchproof.Contracts.Benches;
@@ -14,11 +15,15 @@ namespace Patchproof.Client.Services;
 /// <summary>Calls the server's REST API and turns its answers (or its problem details) into view models.</summary>
 public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
 {
-    private static readonly JsonSerializerOptions Json = new(JsonSerializerDefaults.Web);
+    // The start page's types come from compile-time metadata (StartPageJsonContext), the rest by reflection.
+    private static readonly JsonSerializerOptions Json = new(JsonSerializerDefaults.Web)
+    {
+        TypeInfoResolver = JsonTypeInfoResolver.Combine(StartPageJsonContext.Default, new DefaultJsonTypeInfoResolver()),
+    };
 
     /// <inheritdoc />
     public async Task<HealthResponse> GetHealthAsync(CancellationToken cancellationToken = default) =>
-        await http.GetFromJsonAsync<HealthResponse>("api/health", cancellationToken)
+        await http.GetFromJsonAsync("api/health", StartPageJsonContext.Default.HealthResponse, cancellationToken)
         ?? throw new InvalidOperationException("The server sent an empty health answer.");
 
     /// <inheritdoc />

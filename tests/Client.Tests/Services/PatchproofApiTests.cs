@@ -3,8 +3,10 @@ using System.Text;
 using System.Text.Json;
 using Patchproof.Client.Models;
 using Patchproof.Client.Services;
+using Patchproof.Contracts.Benches;
 using Patchproof.Contracts.Captures;
 using Patchproof.Contracts.Fits;
+using Patchproof.Contracts.Health;
 
 namespace Patchproof.Client.Tests.Services;
 
@@ -37,6 +39,47 @@ public sealed class PatchproofApiTests
         Assert.Equal(answer.Stage, fit.Stage);
         Assert.Equal(state == FitState.Succeeded, fit.HasReport);
         Assert.Equal(answer.FinishedAt, fit.FinishedAt);
+    }
+
+    [Fact]
+    public async Task GetHealthAsync_ServersHealthResponse_IsRead()
+    {
+        // The start page's answers are read with compile-time metadata; the body is the contract as the server writes it.
+        var answer = new HealthResponse("ok", "0.1.0");
+        var api = new PatchproofApi(new HttpClient(new AnswerWith(JsonSerializer.Serialize(answer, JsonSerializerOptions.Web))) { BaseAddress = new Uri("http://localhost/") });
+
+        Assert.Equal(answer, await api.GetHealthAsync(TestContext.Current.CancellationToken));
+    }
+
+    [Fact]
+    public async Task ListBenchesAsync_ServersBenchResponses_BecomeTheBenchesThePageLists()
+    {
+        BenchResponse[] answer =
+        [
+            new(BoardId, "Bench 3, analog lab", "Teaching lab", "Two patch panels", 4, At),
+            new(FitId, "Evening class", null, null, 0, At),
+        ];
+        var api = new PatchproofApi(new HttpClient(new AnswerWith(JsonSerializer.Serialize(answer, JsonSerializerOptions.Web))) { BaseAddress = new Uri("http://localhost/") });
+
+        var read = await api.ListBenchesAsync(TestContext.Current.CancellationToken);
+
+        Assert.True(read.Succeeded);
+        Assert.Equal(
+            [new BenchSummary(BoardId, "Bench 3, analog lab", "Teaching lab", "Two patch panels", 4), new BenchSummary(FitId, "Evening class", null, null, 0)],
+            read.Value);
+    }
+
+    [Fact]
+    public async Task CreateBenchAsync_SendsTheFieldsTheServerReads()
+    {
+        var answer = new BenchResponse(BoardId, "Bench 3, analog lab", "Teaching lab", null, 0, At);
+        var handler = new AnswerWith(JsonSerializer.Serialize(answer, JsonSerializerOptions.Web));
+        var api = new PatchproofApi(new HttpClient(handler) { BaseAddress = new Uri("http://localhost/") });
+
+        var created = await api.CreateBenchAsync(new NewBench("Bench 3, analog lab", "Teaching lab", null), TestContext.Current.CancellationToken);
+
+        Assert.Equal(new CreateBenchRequest("Bench 3, analog lab", "Teaching lab"), JsonSerializer.Deserialize<CreateBenchRequest>(handler.LastBody!, JsonSerializerOptions.Web));
+        Assert.Equal(BoardId, created.Value.Id);
     }
 
     [Fact]

@@ -60,6 +60,7 @@ public static class StartPageTimeline
             api: pick(p => p.startsWith('/api/')).map(r => ({ path: new URL(r.name).pathname, startMs: r.startTime, endMs: r.responseEnd })),
             collectedMs: performance.now(),
             everything: span(all),
+            resources: all.map(r => ({ path: new URL(r.name).pathname, startMs: r.startTime, responseStartMs: r.responseStart, endMs: r.responseEnd, transferKb: r.transferSize / 1024 })),
           };
         }
         """;
