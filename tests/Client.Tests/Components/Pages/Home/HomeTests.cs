@@ -77,6 +77,20 @@ public sealed class HomeTests : BunitContext
     }
 
     [Fact]
+    public void Render_BenchesListed_BuildsTheNewBenchFormOnlyOnceItsSectionIsOpened()
+    {
+        api.Benches = FakePatchproofApi.Ok<IReadOnlyList<BenchSummary>>([DemoData.Bench]);
+        var cut = Render<HomePage>();
+        cut.WaitForAssertion(() => cut.Find(".bench-list a"));
+        Assert.False(cut.Find("details.new-bench").HasAttribute("open"));
+        Assert.Empty(cut.FindAll("details.new-bench form"));
+
+        cut.Find("details.new-bench").TriggerEvent("ontoggle", EventArgs.Empty);
+
+        Assert.Equal(3, cut.FindAll("details.new-bench input").Count);
+    }
+
+    [Fact]
     public void Render_BenchesRefused_ShowsTheProblem()
     {
         api.Benches = FakePatchproofApi.Problem<IReadOnlyList<BenchSummary>>(500, "Database unavailable", "The data folder is read-only.");
