@@ -2,7 +2,6 @@ using System.CommandLine;
 using System.Globalization;
 using Patchproof.Core.Captures;
 using Patchproof.Core.Captures.Calibration;
-using Patchproof.Core.Circuits;
 
 namespace Patchproof.Cli.Verbs;
 

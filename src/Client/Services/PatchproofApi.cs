@@ -50,9 +50,9 @@ public sealed class PatchproofApi(HttpClient http) : IPatchproofApi
                 var body = new StreamContent(file.OpenRead());
                 body.Headers.ContentType = new MediaTypeHeaderValue(string.IsNullOrEmpty(file.ContentType) ? "text/csv" : file.ContentType);
                 var form = new MultipartFormDataContent { { body, "file", file.FileName } };
-                var parameters = new[] { ("note", details.Note), ("knownAmplitude", details.KnownAmplitude), ("amplitudeAccuracy", details.AmplitudeAccuracy) }
-                    .Where(p => !string.IsNullOrWhiteSpace(p.Item2))
-                    .Select(p => p.Item1 + "=" + Uri.EscapeDataString(p.Item2!.Trim()))
+                var parameters = new (string Name, string? Value)[] { ("note", details.Note), ("knownAmplitude", details.KnownAmplitude), ("amplitudeAccuracy", details.AmplitudeAccuracy) }
+                    .Where(p => !string.IsNullOrWhiteSpace(p.Value))
+                    .Select(p => p.Name + "=" + Uri.EscapeDataString(p.Value!.Trim()))
                     .ToList();
                 var query = parameters.Count == 0 ? "" : "?" + string.Join("&", parameters);
                 return new HttpRequestMessage(HttpMethod.Post, $"api/benches/{benchId}/probe-calibrations/from-capture{query}") { Content = form };

@@ -407,7 +407,7 @@ public sealed class DormandPrince45Stepper
         // The norm's scales need only y0 and y1: their reciprocals are ready before the last stage is, so the
         // error waits for a multiply instead of a division.
         var count = absoluteTolerances.Length;
-        ScaledErrorNorm.InverseScales(y.AsSpan(0, count), yNew.AsSpan(0, count), absoluteTolerances, relativeTolerance, error.AsSpan(0, count));
+        ScaledErrorNorm.InverseScales(y, yNew, absoluteTolerances, relativeTolerance, error);
         EvaluateRightHandSide(newTime, yNew, k7);
         last = h * E7;
         var sumOfSquares = 0.0;
