@@ -5,11 +5,12 @@ builder.AddPatchproofServices();
 builder.AddPatchproofPersistence();
 builder.AddPatchproofCaptures();
 builder.AddPatchproofFitJobs();
+builder.AddPatchproofPageRendering();
 
 var app = builder.Build();
 app.UsePatchproofPipeline();
 app.MapPatchproofApi();
-app.MapClientFallback();
+app.MapClientPages();
 app.Run();
 
 /// <summary>The server's entry point; public so integration tests can host it.</summary>

@@ -3,7 +3,11 @@ using Microsoft.Extensions.Options;
 using Patchproof.Server.Captures;
 using Patchproof.Server.Data;
 using Patchproof.Server.Designs;
+using Microsoft.AspNetCore.Components;
+using Microsoft.AspNetCore.Components.WebAssembly.Services;
+using Patchproof.Client.Services;
 using Patchproof.Server.Fits;
+using Patchproof.Server.Rendering;
 using Patchproof.Server.Seeding;
 using Patchproof.Server.Storage;
 
@@ -54,6 +58,18 @@ internal static class ServiceRegistration
         builder.Services.AddSingleton<FitJobQueue>();
         builder.Services.AddSingleton<FitJobSignal>();
         builder.Services.AddHostedService<FitJobRunner>();
+        return builder;
+    }
+
+    /// <summary>The page document, and what the client's start page needs when the server renders it (see <see cref="StartPagePrerendering"/>).</summary>
+    public static WebApplicationBuilder AddPatchproofPageRendering(this WebApplicationBuilder builder)
+    {
+        builder.Services.AddRazorComponents().AddInteractiveWebAssemblyComponents();
+        builder.Services.AddSingleton<LoopbackApiAddress>();
+        builder.Services.AddHttpClient<IPatchproofApi, PatchproofApi>((services, client) => client.BaseAddress =
+            services.GetRequiredService<LoopbackApiAddress>().BaseAddress ?? new Uri(services.GetRequiredService<NavigationManager>().BaseUri));
+        // The client's router asks for it on every navigation; on the server it finds the assemblies already loaded.
+        builder.Services.AddScoped<LazyAssemblyLoader>();
         return builder;
     }
 }

@@ -24,9 +24,10 @@ public static class StartPageTimeline
             set(value) { if (marks.plotlyExecuted === undefined) marks.plotlyExecuted = performance.now(); plotly = value; },
           });
           new MutationObserver((_, observer) => {
-            if (marks.firstRender === undefined && document.querySelector('#app h1')) marks.firstRender = performance.now();
-            if (document.querySelector('#app .server-state .ok')) { marks.serverReady = performance.now(); observer.disconnect(); }
-          }).observe(document, { childList: true, subtree: true });
+            if (marks.firstRender === undefined && document.querySelector('main h1')) marks.firstRender = performance.now();
+            if (marks.serverReady === undefined && document.querySelector('main .server-state .ok')) marks.serverReady = performance.now();
+            if (document.querySelector('main .new-bench button:enabled')) { marks.interactive = performance.now(); observer.disconnect(); }
+          }).observe(document, { childList: true, subtree: true, attributes: true });
         })();
         """;
 
@@ -49,13 +50,14 @@ public static class StartPageTimeline
             domContentLoadedMs: nav.domContentLoadedEventEnd,
             plotlyScript: span(pick(p => /\/plotly-[0-9.]+(\.min)?\.js$/.test(p))),
             plotlyExecutedMs: marks.plotlyExecuted ?? null,
-            blazorScript: span(pick(p => /\/blazor\.webassembly[^/]*\.js$/.test(p))),
+            blazorScript: span(pick(p => /\/blazor\.web(assembly)?[^/]*\.js$/.test(p))),
             dotnetScript: span(pick(p => /\/_framework\/dotnet\.[^/]*js$/.test(p) && !/runtime|native/.test(p))),
             runtime: span(pick(p => /\/_framework\/dotnet\.(runtime|native)[^/]*$/.test(p))),
             assemblies: span(framework.filter(r => /\.wasm$/.test(new URL(r.name).pathname) && !/dotnet\.native/.test(r.name))),
             framework: span(framework),
             firstRenderMs: marks.firstRender ?? null,
             serverReadyMs: marks.serverReady ?? null,
+            interactiveMs: marks.interactive ?? null,
             health: span(pick(p => p === '/api/health')),
             api: pick(p => p.startsWith('/api/')).map(r => ({ path: new URL(r.name).pathname, startMs: r.startTime, endMs: r.responseEnd })),
             collectedMs: performance.now(),

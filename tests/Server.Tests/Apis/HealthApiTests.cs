@@ -30,17 +30,6 @@ public sealed class HealthApiTests
     }
 
     [Fact]
-    public async Task ClientRoute_ServesTheStartPage()
-    {
-        await using var api = ApiTest.Start(ServerDatabase.Sqlite);
-
-        var page = await api.Client.GetStringAsync("/boards/anything", ApiTest.Token);
-
-        Assert.Contains("<div id=\"app\">", page, StringComparison.Ordinal);
-        Assert.Contains("_framework/blazor.webassembly.js", page, StringComparison.Ordinal);
-    }
-
-    [Fact]
     public async Task OpenApiDocument_DescribesEveryResource()
     {
         await using var api = ApiTest.Start(ServerDatabase.Sqlite);

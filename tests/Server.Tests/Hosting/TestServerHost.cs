@@ -5,6 +5,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Time.Testing;
+using Patchproof.Client.Services;
 using Patchproof.Server.Fits;
 
 namespace Patchproof.Server.Tests.Hosting;
@@ -85,6 +86,8 @@ internal sealed class TestServerHost : WebApplicationFactory<Program>
             services.RemoveAll<TimeProvider>();
             services.AddSingleton<TimeProvider>(Time);
             services.Configure<HostOptions>(host => host.ShutdownTimeout = settings.ShutdownTimeout);
+            // The start page's server rendering calls the API over HTTP; in memory there is no socket to call.
+            services.AddHttpClient<IPatchproofApi, PatchproofApi>().ConfigurePrimaryHttpMessageHandler(() => Server.CreateHandler());
             if (settings.WithoutEngine)
             {
                 services.RemoveAll<IFitJobExecutor>();

@@ -1,11 +1,12 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using Patchproof.Client.Components.Pages.Home;
 using Patchproof.Client.Models;
 using Patchproof.Contracts.Health;
 
 namespace Patchproof.Client.Services.Wire;
 
-/// <summary>Compile-time JSON metadata for the answers the start page waits for, and the bench it records.</summary>
+/// <summary>Compile-time JSON metadata for the answers the start page waits for, the bench it records and the snapshot the server hands it.</summary>
 /// <remarks>
 /// The WebAssembly runtime interprets .NET code, so the reflection-based serializer's first use of a type (reading its
 /// constructors and properties, building its converters) costs noticeably on the first page load. Types listed here
@@ -16,4 +17,5 @@ namespace Patchproof.Client.Services.Wire;
 [JsonSerializable(typeof(List<BenchWire>))]
 [JsonSerializable(typeof(BenchWire))]
 [JsonSerializable(typeof(NewBench))]
+[JsonSerializable(typeof(StartPageSnapshot))]
 internal sealed partial class StartPageJsonContext : JsonSerializerContext;

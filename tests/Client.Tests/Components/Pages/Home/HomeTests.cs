@@ -1,6 +1,8 @@
 using Bunit;
+using Bunit.TestDoubles;
 using Microsoft.AspNetCore.Components;
 using Microsoft.Extensions.DependencyInjection;
+using Patchproof.Client.Components.Pages.Home;
 using Patchproof.Client.Models;
 using Patchproof.Client.Services;
 using Patchproof.Client.Tests.Fakes;
@@ -12,8 +14,14 @@ namespace Patchproof.Client.Tests.Components.Pages.Home;
 public sealed class HomeTests : BunitContext
 {
     private readonly FakePatchproofApi api = new();
+    private readonly BunitPersistentComponentState pageState;
 
-    public HomeTests() => Services.AddSingleton<IPatchproofApi>(api);
+    public HomeTests()
+    {
+        Services.AddSingleton<IPatchproofApi>(api);
+        pageState = AddBunitPersistentComponentState();
+        SetRendererInfo(new RendererInfo("WebAssembly", isInteractive: true));
+    }
 
     [Fact]
     public void Render_WhileServerHasNotAnswered_ShowsPending()
@@ -57,7 +65,7 @@ public sealed class HomeTests : BunitContext
         var cut = Render<HomePage>();
 
         cut.WaitForAssertion(() => Assert.Contains("No bench or class is recorded yet", cut.Markup, StringComparison.Ordinal));
-        Assert.True(cut.Find("details.new-bench").HasAttribute("open"));
+        Assert.Equal(3, cut.FindAll(".new-bench input").Count);
     }
 
     [Fact]
@@ -77,17 +85,72 @@ public sealed class HomeTests : BunitContext
     }
 
     [Fact]
-    public void Render_BenchesListed_BuildsTheNewBenchFormOnlyOnceItsSectionIsOpened()
+    public void Render_BenchesListed_BuildsTheNewBenchFormOnlyOnceAskedFor()
     {
         api.Benches = FakePatchproofApi.Ok<IReadOnlyList<BenchSummary>>([DemoData.Bench]);
         var cut = Render<HomePage>();
         cut.WaitForAssertion(() => cut.Find(".bench-list a"));
-        Assert.False(cut.Find("details.new-bench").HasAttribute("open"));
-        Assert.Empty(cut.FindAll("details.new-bench form"));
+        Assert.Empty(cut.FindAll(".new-bench form"));
 
-        cut.Find("details.new-bench").TriggerEvent("ontoggle", EventArgs.Empty);
+        cut.Find("button.open-form").Click();
 
-        Assert.Equal(3, cut.FindAll("details.new-bench input").Count);
+        Assert.Equal(3, cut.FindAll(".new-bench input").Count);
+        Assert.False(cut.Find(".new-bench fieldset").HasAttribute("disabled"));
+    }
+
+    [Fact]
+    public void Render_OnTheServer_ShowsTheAnswersWithTheControlsDisabled()
+    {
+        SetRendererInfo(new RendererInfo("Static", isInteractive: false));
+        api.Benches = FakePatchproofApi.Ok<IReadOnlyList<BenchSummary>>([DemoData.Bench]);
+
+        var cut = Render<HomePage>();
+
+        cut.WaitForAssertion(() => Assert.Equal("Analog Lab B", cut.Find(".bench-list a").TextContent));
+        Assert.Contains("Server ready", cut.Find(".server-state").TextContent, StringComparison.Ordinal);
+        Assert.True(cut.Find("button.open-form").HasAttribute("disabled"));
+    }
+
+    [Fact]
+    public void Render_OnTheServerWithNoBench_ShowsTheFormDisabled()
+    {
+        SetRendererInfo(new RendererInfo("Static", isInteractive: false));
+        api.Benches = FakePatchproofApi.Ok<IReadOnlyList<BenchSummary>>([]);
+
+        var cut = Render<HomePage>();
+
+        cut.WaitForAssertion(() => Assert.True(cut.Find(".new-bench fieldset").HasAttribute("disabled")));
+    }
+
+    [Fact]
+    public void Persisting_AfterBothAnswers_HandsTheServerRenderingsAnswersToTheClient()
+    {
+        api.Health = Task.FromResult(new HealthResponse("ok", "9.8.7"));
+        api.Benches = FakePatchproofApi.Ok<IReadOnlyList<BenchSummary>>([DemoData.Bench]);
+        var cut = Render<HomePage>();
+        cut.WaitForAssertion(() => cut.Find(".bench-list a"));
+
+        pageState.TriggerOnPersisting();
+
+        // The client's turn: the same page, from what the server handed over, without asking the API again.
+        api.Health = new TaskCompletionSource<HealthResponse>().Task;
+        api.Benches = FakePatchproofApi.Never<IReadOnlyList<BenchSummary>>();
+        var client = Render<HomePage>();
+        Assert.Contains("Server ready · core 9.8.7", client.Find(".server-state").TextContent, StringComparison.Ordinal);
+        Assert.Equal("Analog Lab B", client.Find(".bench-list a").TextContent);
+    }
+
+    [Fact]
+    public void Persisting_AfterAFailedAnswer_HandsNothingOver()
+    {
+        api.Health = Task.FromException<HealthResponse>(new HttpRequestException("connection refused"));
+        api.Benches = FakePatchproofApi.Ok<IReadOnlyList<BenchSummary>>([DemoData.Bench]);
+        var cut = Render<HomePage>();
+        cut.WaitForAssertion(() => cut.Find(".server-state [role=alert]"));
+
+        pageState.TriggerOnPersisting();
+
+        Assert.False(pageState.TryTake<string>(StartPageSnapshot.StateKey, out _));
     }
 
     [Fact]
@@ -111,10 +174,10 @@ public sealed class HomeTests : BunitContext
             return FakePatchproofApi.Ok(DemoData.Bench);
         };
         var cut = Render<HomePage>();
-        cut.WaitForAssertion(() => cut.Find("details.new-bench input"));
+        cut.WaitForAssertion(() => cut.Find(".new-bench input"));
 
-        cut.FindAll("details.new-bench input")[0].Change("  Analog Lab B ");
-        cut.Find("details.new-bench form").Submit();
+        cut.FindAll(".new-bench input")[0].Change("  Analog Lab B ");
+        cut.Find(".new-bench form").Submit();
 
         Assert.Equal(new NewBench("Analog Lab B", null, null), sent);
         Assert.EndsWith($"benches/{DemoData.BenchId}", Services.GetRequiredService<NavigationManager>().Uri, StringComparison.Ordinal);
@@ -131,9 +194,9 @@ public sealed class HomeTests : BunitContext
             return FakePatchproofApi.Ok(DemoData.Bench);
         };
         var cut = Render<HomePage>();
-        cut.WaitForAssertion(() => cut.Find("details.new-bench form"));
+        cut.WaitForAssertion(() => cut.Find(".new-bench form"));
 
-        cut.Find("details.new-bench form").Submit();
+        cut.Find(".new-bench form").Submit();
 
         Assert.Equal(0, calls);
         Assert.Contains("Give the bench a name.", cut.Markup, StringComparison.Ordinal);
