@@ -16,10 +16,11 @@ public sealed class StartPageTests(LiveServer server, Browser browser)
         await StartPageTimeline.PrepareAsync(page);
         var stopwatch = Stopwatch.StartNew();
 
-        await page.GotoAsync(server.BaseAddress.ToString());
+        // Waits only for the answer to begin, not for the load event: the figure is when the page shows what it is for.
+        await page.GotoAsync(server.BaseAddress.ToString(), new PageGotoOptions { WaitUntil = WaitUntilState.Commit });
         // Checked on every animation frame: a locator's wait re-checks only every 500 ms after its first second, which
         // would round the figure up to the next check.
-        await page.WaitForFunctionAsync("() => document.body.textContent.includes('Server ready')", null, new PageWaitForFunctionOptions { Timeout = 60_000 });
+        await page.WaitForFunctionAsync("() => document.body !== null && document.body.textContent.includes('Server ready')", null, new PageWaitForFunctionOptions { Timeout = 60_000 });
         var readyMs = stopwatch.ElapsedMilliseconds;
         // The page comes rendered from the server; its buttons work once the client has taken it over.
         await page.WaitForFunctionAsync("() => document.querySelector('main .new-bench button:enabled') !== null", null, new PageWaitForFunctionOptions { Timeout = 60_000 });
@@ -36,6 +37,7 @@ public sealed class StartPageTests(LiveServer server, Browser browser)
         var timeline = await StartPageTimeline.CollectAsync(page, "start-page-timeline");
         await Timings.RecordAsync("start-page-framework-loaded-ms", timeline.GetProperty("framework").GetProperty("endMs").GetDouble());
         await Timings.RecordAsync("start-page-first-render-ms", timeline.GetProperty("firstRenderMs").GetDouble());
+        await Timings.RecordAsync("start-page-load-event-ms", timeline.GetProperty("loadEventMs").GetDouble());
         // The same moment as start-page-ready-ms seen from inside the page, without the test driver's round trips.
         await Timings.RecordAsync("start-page-server-ready-in-page-ms", timeline.GetProperty("serverReadyMs").GetDouble());
         await Timings.RecordAsync("start-page-interactive-in-page-ms", timeline.GetProperty("interactiveMs").GetDouble());
@@ -57,6 +59,25 @@ public sealed class StartPageTests(LiveServer server, Browser browser)
         await page.Keyboard.PressAsync("Tab");
 
         Assert.Equal("Skip to content", await page.EvaluateAsync<string>("() => document.activeElement.textContent"));
+    }
+
+    [Fact]
+    public async Task StartPage_FocusGivenBeforeTheClientTakesOver_StaysOnTheSameLink()
+    {
+        var page = await browser.NewPageAsync();
+        await page.GotoAsync(server.BaseAddress.ToString(), new PageGotoOptions { WaitUntil = WaitUntilState.Commit });
+        var benchLink = page.Locator(".bench-list a").First;
+        await benchLink.WaitForAsync(new LocatorWaitForOptions { Timeout = 60_000 });
+        var prerendered = await page.EvaluateAsync<bool>("() => document.querySelector('main .new-bench button:enabled') === null");
+
+        await benchLink.FocusAsync();
+        await page.WaitForFunctionAsync("() => document.querySelector('main .new-bench button:enabled') !== null", null, new PageWaitForFunctionOptions { Timeout = 60_000 });
+
+        // Only meaningful if the focus was given to the server's rendering; on a machine fast enough to take the page
+        // over first the question does not arise.
+        Assert.SkipUnless(prerendered, "The client took the page over before the link could be focused.");
+        Assert.Equal("Analog Lab B", await page.EvaluateAsync<string>("() => document.activeElement.textContent"));
+        Assert.True(await page.EvaluateAsync<bool>("() => document.activeElement.classList.contains('bench-name')"));
     }
 
     [Fact]
