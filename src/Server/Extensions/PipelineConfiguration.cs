@@ -10,9 +10,10 @@ internal static class PipelineConfiguration
         // No stack trace leaves the server: unhandled errors become RFC 9457 problem details.
         app.UseExceptionHandler();
         app.UseStatusCodePages();
-        // Outside the API an address no page answers gets the page document with status 404; the client says so.
+        // Outside the API an address no page answers gets the page document with status 404; the client says so. A
+        // missing file (a browser's favicon.ico, say) gets a plain 404: rendering the document for it costs the server.
         app.UseWhen(
-            context => !context.Request.Path.StartsWithSegments("/api"),
+            context => !context.Request.Path.StartsWithSegments("/api") && !Path.HasExtension(context.Request.Path.Value),
             pages => pages.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
         // After the re-execution above, so the request it repeats is routed to its new path.
         app.UseRouting();
@@ -27,7 +28,8 @@ internal static class PipelineConfiguration
     {
         app.MapRazorComponents<PageDocument>()
             .AddInteractiveWebAssemblyRenderMode()
-            .AddAdditionalAssemblies(typeof(Patchproof.Client.App).Assembly);
+            .AddAdditionalAssemblies(typeof(Patchproof.Client.App).Assembly)
+            .Add(ClientAssetList.LeaveOut);
         app.MapFallback("api/{**rest}", (string? rest) => TypedResults.Problem(
             statusCode: StatusCodes.Status404NotFound,
             title: "No such API resource",

@@ -70,6 +70,7 @@ internal static class ServiceRegistration
             services.GetRequiredService<LoopbackApiAddress>().BaseAddress ?? new Uri(services.GetRequiredService<NavigationManager>().BaseUri));
         // The client's router asks for it on every navigation; on the server it finds the assemblies already loaded.
         builder.Services.AddScoped<LazyAssemblyLoader>();
+        builder.Services.AddHostedService<StartPageWarmUp>();
         return builder;
     }
 }

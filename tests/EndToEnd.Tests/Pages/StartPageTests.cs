@@ -37,6 +37,7 @@ public sealed class StartPageTests(LiveServer server, Browser browser)
         var timeline = await StartPageTimeline.CollectAsync(page, "start-page-timeline");
         await Timings.RecordAsync("start-page-framework-loaded-ms", timeline.GetProperty("framework").GetProperty("endMs").GetDouble());
         await Timings.RecordAsync("start-page-first-render-ms", timeline.GetProperty("firstRenderMs").GetDouble());
+        await Timings.RecordAsync("start-page-first-contentful-paint-ms", timeline.GetProperty("firstContentfulPaintMs").GetDouble());
         await Timings.RecordAsync("start-page-load-event-ms", timeline.GetProperty("loadEventMs").GetDouble());
         // The same moment as start-page-ready-ms seen from inside the page, without the test driver's round trips.
         await Timings.RecordAsync("start-page-server-ready-in-page-ms", timeline.GetProperty("serverReadyMs").GetDouble());

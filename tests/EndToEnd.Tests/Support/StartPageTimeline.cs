@@ -50,6 +50,7 @@ public static class StartPageTimeline
             htmlMs: nav.responseEnd,
             domContentLoadedMs: nav.domContentLoadedEventEnd,
             loadEventMs: nav.loadEventEnd,
+            firstContentfulPaintMs: performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? null,
             plotlyScript: span(pick(p => /\/plotly-[0-9.]+(\.min)?\.js$/.test(p))),
             plotlyExecutedMs: marks.plotlyExecuted ?? null,
             blazorScript: span(pick(p => /\/blazor\.web(assembly)?[^/]*\.js$/.test(p))),

@@ -24,6 +24,32 @@ public sealed class PageDocumentTests
     }
 
     [Fact]
+    public async Task StartPage_HandsTheClientNoAddressOfTheStaticFileList()
+    {
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite);
+
+        var page = await api.Client.GetStringAsync("/", ApiTest.Token);
+
+        // The handed-over state is base64 of JSON whose values are base64 again; ClientAssetList leaves the address out.
+        var state = System.Text.RegularExpressions.Regex.Match(page, "<!--Blazor-WebAssembly-Component-State:([A-Za-z0-9+/=]+)-->").Groups[1].Value;
+        var entries = System.Text.Json.JsonSerializer.Deserialize<Dictionary<string, string>>(Convert.FromBase64String(state))!;
+        var values = entries.Values.Select(value => System.Text.Encoding.UTF8.GetString(Convert.FromBase64String(value)));
+        Assert.Contains(values, value => value.Contains("Analog Lab B", StringComparison.Ordinal));
+        Assert.DoesNotContain(values, value => value.Contains("resource-collection", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public async Task MissingFile_AnswersAPlainNotFound()
+    {
+        await using var api = ApiTest.Start(ServerDatabase.Sqlite);
+
+        using var response = await api.Client.GetAsync("/favicon.ico", ApiTest.Token);
+
+        Assert.Equal(HttpStatusCode.NotFound, response.StatusCode);
+        Assert.DoesNotContain("blazor.web", await response.Content.ReadAsStringAsync(ApiTest.Token), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task OtherPage_IsLeftToTheClient_WithANoticeUntilItRuns()
     {
         await using var api = ApiTest.Start(ServerDatabase.Sqlite);
