@@ -1,11 +1,11 @@
+using Microsoft.AspNetCore.Components;
+using Microsoft.AspNetCore.Components.WebAssembly.Services;
 using Microsoft.AspNetCore.Hosting.StaticWebAssets;
 using Microsoft.Extensions.Options;
+using Patchproof.Client.Services;
 using Patchproof.Server.Captures;
 using Patchproof.Server.Data;
 using Patchproof.Server.Designs;
-using Microsoft.AspNetCore.Components;
-using Microsoft.AspNetCore.Components.WebAssembly.Services;
-using Patchproof.Client.Services;
 using Patchproof.Server.Fits;
 using Patchproof.Server.Rendering;
 using Patchproof.Server.Seeding;

@@ -27,7 +27,7 @@ internal sealed class LoopbackApiAddress(IServer server)
         builder.Host = builder.Host switch
         {
             "0.0.0.0" => "127.0.0.1",
-            "[::]" or "::" => "[::1]",
+            "[::]" => "[::1]",
             _ => builder.Host,
         };
         builder.Path = "/";

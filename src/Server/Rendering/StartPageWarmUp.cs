@@ -17,40 +17,34 @@ internal sealed partial class StartPageWarmUp(
 {
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
-        if (!await HasStartedAsync(stoppingToken) || address.BaseAddress is not { } baseAddress)
-        {
-            return;
-        }
-
-        var stopwatch = Stopwatch.StartNew();
         try
         {
+            var started = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+            using (lifetime.ApplicationStarted.Register(() => started.TrySetResult()))
+            {
+                await started.Task.WaitAsync(stoppingToken);
+            }
+
+            if (address.BaseAddress is not { } baseAddress)
+            {
+                return;
+            }
+
+            var stopwatch = Stopwatch.StartNew();
             using var client = clients.CreateClient();
             using var response = await client.GetAsync(baseAddress, stoppingToken);
             response.EnsureSuccessStatusCode();
             await response.Content.ReadAsByteArrayAsync(stoppingToken);
             Warmed(logger, stopwatch.ElapsedMilliseconds);
         }
-        catch (Exception ex) when (ex is HttpRequestException or TaskCanceledException && !stoppingToken.IsCancellationRequested)
+        catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
+        {
+            // Stopped before or during the warm-up: nothing to report.
+        }
+        catch (Exception ex) when (ex is HttpRequestException or TaskCanceledException)
         {
             // Nothing is lost: the first person's request does the same work, a second later.
             WarmUpFailed(logger, ex.Message);
-        }
-    }
-
-    private async Task<bool> HasStartedAsync(CancellationToken stoppingToken)
-    {
-        var started = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
-        using var onStarted = lifetime.ApplicationStarted.Register(() => started.TrySetResult());
-        using var onStopping = stoppingToken.Register(() => started.TrySetCanceled(stoppingToken));
-        try
-        {
-            await started.Task;
-            return true;
-        }
-        catch (TaskCanceledException)
-        {
-            return false;
         }
     }
 

@@ -9,6 +9,9 @@ namespace Patchproof.EndToEnd.Tests.Pages;
 [Collection(EndToEndCollection.Name)]
 public sealed class StartPageTests(LiveServer server, Browser browser)
 {
+    // The server's rendering has the start page's buttons disabled; the client's has them enabled.
+    private const string ClientHasTakenOver = "() => document.querySelector('main .new-bench button:enabled') !== null";
+
     [Fact]
     public async Task StartPage_ComesRenderedFromTheServer_AndTheClientTakesItOver()
     {
@@ -23,7 +26,7 @@ public sealed class StartPageTests(LiveServer server, Browser browser)
         await page.WaitForFunctionAsync("() => document.body !== null && document.body.textContent.includes('Server ready')", null, new PageWaitForFunctionOptions { Timeout = 60_000 });
         var readyMs = stopwatch.ElapsedMilliseconds;
         // The page comes rendered from the server; its buttons work once the client has taken it over.
-        await page.WaitForFunctionAsync("() => document.querySelector('main .new-bench button:enabled') !== null", null, new PageWaitForFunctionOptions { Timeout = 60_000 });
+        await page.WaitForFunctionAsync(ClientHasTakenOver, null, new PageWaitForFunctionOptions { Timeout = 60_000 });
         stopwatch.Stop();
         await page.GetByText("Server ready").WaitForAsync(new LocatorWaitForOptions { Timeout = 5_000 });
         Assert.Equal(1, await page.Locator(".bench-list a", new() { HasTextString = "Analog Lab B" }).CountAsync());
@@ -76,11 +79,11 @@ public sealed class StartPageTests(LiveServer server, Browser browser)
         await page.GotoAsync(server.BaseAddress.ToString(), new PageGotoOptions { WaitUntil = WaitUntilState.Commit });
         var benchLink = page.Locator(".bench-list a").First;
         await benchLink.WaitForAsync(new LocatorWaitForOptions { Timeout = 60_000 });
-        Assert.True(await page.EvaluateAsync<bool>("() => document.querySelector('main .new-bench button:enabled') === null"));
+        Assert.False(await page.EvaluateAsync<bool>(ClientHasTakenOver));
 
         await benchLink.FocusAsync();
         focused.SetResult();
-        await page.WaitForFunctionAsync("() => document.querySelector('main .new-bench button:enabled') !== null", null, new PageWaitForFunctionOptions { Timeout = 60_000 });
+        await page.WaitForFunctionAsync(ClientHasTakenOver, null, new PageWaitForFunctionOptions { Timeout = 60_000 });
 
         Assert.Equal("Analog Lab B", await page.EvaluateAsync<string>("() => document.activeElement.textContent"));
         Assert.True(await page.EvaluateAsync<bool>("() => document.activeElement.classList.contains('bench-name')"));
